@@ -70,6 +70,8 @@ public static class EventDetector
 
         var regions = FindRegions(d, first, last, threshold, w);
         var candidates = new List<(EventCandidate C, double K)>();
+        int transientEnd = -1_000_000_000;
+        double transientBefore = 0;
         for (int r = 0; r < regions.Count; r++)
         {
             var (start, end, peak) = regions[r];
@@ -92,17 +94,23 @@ public static class EventDetector
                 {
                     var shape = excursion < 0 ? CandidateShape.Dip : CandidateShape.Bump;
                     candidates.Add((new EventCandidate(time, Math.Tanh(excursion / 2), shape, snr, null), Math.Tanh(excursion / 2)));
+                    transientEnd = next.End;
+                    transientBefore = before;
                     r++;
                     continue;
                 }
             }
 
+            // The slow recovery of a transient crosses the threshold again: it is no new event if the level ends
+            // where it was before the transient.
+            if (start - transientEnd <= 4 * w && Math.Abs(after - transientBefore) < 2 * threshold) continue;
+
             double k = Math.Tanh((after - before) / 2);
-            bool isEnd = truncated && r == regions.Count - 1 || Math.Abs(k) >= EndReflectionMagnitude;
-            double? zAfter = isEnd && Math.Abs(k) >= EndReflectionMagnitude ? null : z0 * Math.Exp(after);
-            if (isEnd && truncated && Math.Abs(k) < EndReflectionMagnitude && Math.Abs(k) > 0.5)
-                k = Math.Sign(k);                                  // peeling stopped: nothing passes beyond, so it is an open or short
-            if (Math.Abs(k) >= EndReflectionMagnitude) zAfter = null;
+            bool isEnd = truncated && r == regions.Count - 1;
+            // Peeling stops where the impedance leaves [Z0/19, 19·Z0]: nothing measurable passes beyond, so the
+            // last climb is an open (+1) or a short (−1).
+            if (isEnd && Math.Abs(k) > 0.5) k = Math.Sign(k);
+            double? zAfter = Math.Abs(k) >= EndReflectionMagnitude ? null : z0 * Math.Exp(after);
             candidates.Add((new EventCandidate(time, k, CandidateShape.Step, snr, zAfter), k));
         }
 

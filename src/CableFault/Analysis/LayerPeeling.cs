@@ -48,6 +48,11 @@ public static class LayerPeeling
     /// Π(1 − k_j²) &lt; 0.02: beyond, noise is amplified more than 7× in amplitude and the far end has been reached.</summary>
     public const double MinimumTransmittedEnergy = 0.02;
 
+    /// <summary>Peeling also stops once the impedance leaves [Z_0/19, 19·Z_0] (a reflection beyond ±0.9 against Z_0):
+    /// a band-limited open or short arrives as a smooth climb over many thin layers, which the layered model sees as a
+    /// taper that still transmits, so the energy test alone would carry on peeling amplified noise.</summary>
+    public const double MaximumImpedanceRatio = 19;
+
     /// <summary>Upper bound on the loss-correction gain (noise is amplified by the same factor).</summary>
     public const double MaximumLossGain = 10;
 
@@ -120,6 +125,7 @@ public static class LayerPeeling
             zPrev = z[j] = zPrev * (1 + kj) / (1 - kj);
             layers = j + 1;
             transmitted *= 1 - kj * kj;
+            if (zPrev > MaximumImpedanceRatio * z0Ohms || zPrev < z0Ohms / MaximumImpedanceRatio) break;
             Peel(u, w, m - j, kj);
         }
 
