@@ -177,7 +177,7 @@ internal sealed class TraceCsvParser
                 $"{_source}: line {ln}: time {t:G6} s is beyond ±{TraceCsvReader.MaxAbsTimeSeconds} s, far longer than any reflectometer record; check the time unit in the header (e.g. time_ns).");
         if (Math.Abs(v) > TraceCsvReader.MaxAbsVolts)
             throw new InputException(
-                $"{_source}: line {ln}: value {v:G6} in column '{_signalColumn.Header}' is beyond ±{TraceCsvReader.MaxAbsVolts:G3}; check the unit in the header (e.g. mv) and the file.");
+                $"{_source}: line {ln}: value {v:G6} in column '{_signalColumn.Header}' is beyond ±{TraceCsvReader.MaxAbsVolts:0.#e0}; check the unit in the header (e.g. mv) and the file.");
 
         if (_times.Count > 0)
         {
