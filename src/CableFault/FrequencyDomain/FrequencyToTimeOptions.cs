@@ -6,7 +6,7 @@ public sealed record FrequencyToTimeOptions
     /// <summary>Transform mode. Default automatic.</summary>
     public TransformMode Mode { get; init; } = TransformMode.Automatic;
 
-    /// <summary>Spectral window. Default Kaiser (with β = 6): sidelobes near −44 dB at a rise time about 1.6× the unwindowed one.</summary>
+    /// <summary>Spectral window. Default Kaiser (with β = 6): sidelobes near −44 dB; 10–90 % rise ≈ 0.99/f_max against 0.45/f_max unwindowed.</summary>
     public SpectralWindow Window { get; init; } = SpectralWindow.Kaiser;
 
     /// <summary>Kaiser shape β = πα (0 … 20); used only with <see cref="SpectralWindow.Kaiser"/>. Default 6.</summary>
