@@ -21,7 +21,7 @@ public static partial class TraceCsvWriter
     {
         ArgumentNullException.ThrowIfNull(trace);
         ArgumentNullException.ThrowIfNull(writer);
-        foreach (var (key, value) in trace.Metadata.OrderBy(kv => kv.Key, StringComparer.Ordinal))
+        foreach (var (key, value) in trace.Metadata.OrderBy(kv => kv.Key.ToLowerInvariant(), StringComparer.Ordinal))
         {
             if (!KeyPattern().IsMatch(key))
                 throw new ArgumentException($"Metadata key '{key}' cannot be written as '# key=value'.", nameof(trace));
