@@ -32,12 +32,17 @@ public static class SimulateCommand
         var svg = CommonOptions.Svg("a plot of the trace against distance");
         var units = CommonOptions.Units();
         var cables = CommonOptions.CableFile();
+        var meta = new Option<string[]>("--meta")
+        {
+            Description = "Extra metadata written into the trace, as KEY=VALUE (repeatable), e.g. --meta site=\"Depot 4\".",
+            AllowMultipleArgumentsPerToken = false,
+        };
 
         var command = new Command("simulate",
             "Compute the step-response trace a reflectometer would record on a described cable run.\n\n" +
             "Example:\n  cablefault simulate traces/harbour-view/mast-feeder.network.json -o mast.csv --png mast.png")
         {
-            network, output, rise, interval, duration, samples, pre, source, amplitude, noise, seed, edge, png, svg, units, cables,
+            network, output, rise, interval, duration, samples, pre, source, amplitude, noise, seed, edge, png, svg, units, cables, meta,
         };
         command.SetAction(parsed =>
         {
@@ -69,6 +74,14 @@ public static class SimulateCommand
             if (problems.Count > 0) throw new InputException($"simulate settings: {string.Join("; ", problems)}");
 
             var trace = ForwardModel.Simulate(run, settings);
+            foreach (string pair in parsed.GetValue(meta) ?? [])
+            {
+                int equals = pair.IndexOf('=');
+                if (equals <= 0) throw new InputException($"--meta '{pair}': expected KEY=VALUE");
+                string key = pair[..equals].Trim().ToLowerInvariant();
+                if (key.Any(c => !(char.IsLetterOrDigit(c) || c == '_'))) throw new InputException($"--meta '{pair}': keys may hold only letters, digits and '_'");
+                trace = trace.WithMetadata(key, pair[(equals + 1)..].Trim());
+            }
             if (parsed.GetValue(output) is FileInfo outFile)
             {
                 AtomicFile.WriteText(outFile.FullName, writer => TraceCsvWriter.Write(trace, writer));

@@ -15,6 +15,14 @@ public static class AtomicFile
             throw new InputException($"{path}: folder '{folder}' does not exist; create it or choose another output path");
         if (Directory.Exists(fullPath))
             throw new InputException($"{path}: is a folder; give a file name for the output");
+        if (IsSpecialFile(fullPath))
+        {
+            // A device or pipe (/dev/null, /dev/stdout, a FIFO) cannot be replaced by rename, and must not be:
+            // write straight into it.
+            using var direct = new FileStream(fullPath, FileMode.Open, FileAccess.Write, FileShare.ReadWrite);
+            write(direct);
+            return;
+        }
         string temporary = Path.Combine(folder, $".{Path.GetFileName(fullPath)}.{Environment.ProcessId}.{Guid.NewGuid():N}.tmp");
         try
         {
@@ -37,6 +45,15 @@ public static class AtomicFile
         {
             if (File.Exists(temporary)) File.Delete(temporary);
         }
+    }
+
+    /// <summary>True for devices and pipes (/dev/null, /dev/stdout → /proc/self/fd/1), which must be written in place.</summary>
+    private static bool IsSpecialFile(string fullPath)
+    {
+        if (OperatingSystem.IsWindows() || !File.Exists(fullPath)) return false;
+        string real = File.ResolveLinkTarget(fullPath, returnFinalTarget: true)?.FullName ?? fullPath;
+        return real.StartsWith("/dev/", StringComparison.Ordinal) || real.StartsWith("/proc/", StringComparison.Ordinal)
+            || fullPath.StartsWith("/dev/", StringComparison.Ordinal);
     }
 
     /// <summary>Writes text (UTF-8, no BOM) atomically.</summary>

@@ -8,7 +8,7 @@ namespace CableFault.Reporting.Plots;
 /// <summary>Renders a <see cref="Figure"/> to PNG bytes or SVG text with ScottPlot. Pure: nothing is written to disk here.</summary>
 public static class FigureRenderer
 {
-    private const int LeftPadding = 90, RightPadding = 30, BottomPadding = 55, TopPaddingFirst = 75, TopPadding = 40;
+    private const int LeftPadding = 90, RightPadding = 30;
 
     /// <summary>PNG image of the figure.</summary>
     public static byte[] ToPng(Figure figure)
@@ -60,8 +60,12 @@ public static class FigureRenderer
             plot.FigureBackground.Color = FigurePalette.Background;
             plot.DataBackground.Color = Colors.White;
             plot.Grid.MajorLineColor = FigurePalette.Grid;
-            plot.Layout.Fixed(new PixelPadding(LeftPadding, RightPadding, BottomPadding, p == 0 ? TopPaddingFirst : TopPadding));
-            plot.Title(p == 0 && figure.Title.Length > 0 ? $"{figure.Title}\n{panel.Title}" : panel.Title, 15);
+            // Same left/right gutters on every panel so the distance axes line up when stacked.
+            plot.Axes.Left.MinimumSize = LeftPadding;
+            plot.Axes.Left.MaximumSize = LeftPadding;
+            plot.Axes.Right.MinimumSize = RightPadding;
+            plot.Axes.Right.MaximumSize = RightPadding;
+            plot.Title(p == 0 && figure.Title.Length > 0 ? $"{figure.Title} — {panel.Title}" : panel.Title, 15);
             plot.XLabel($"Distance from connector ({unit.Symbol})", 13);
             plot.YLabel(panel.YLabel, 13);
 
@@ -140,11 +144,14 @@ public static class FigureRenderer
         for (double t = Math.Ceiling(tMin / step) * step; t <= tMax + step * 1e-9; t += step)
         {
             double meters = t * 1e-9 * v / 2;
-            ticks.AddMajor(unit.FromMeters(meters), t.ToString(step >= 1 ? "F0" : "G3", CultureInfo.InvariantCulture));
+            double shown = Math.Abs(t) < step * 1e-6 ? 0 : t;
+            ticks.AddMajor(unit.FromMeters(meters), shown.ToString(step >= 1 ? "F0" : "G3", CultureInfo.InvariantCulture) + " ns");
         }
         plot.Axes.Top.TickGenerator = ticks;
-        plot.Axes.Top.Label.Text = string.Create(CultureInfo.InvariantCulture, $"Round-trip time (ns), VF {velocityFactor:F3}");
-        plot.Axes.Top.Label.FontSize = 12;
+        // The top axis has its own range; plottables live on the bottom axis, so mirror its limits.
+        plot.Axes.SetLimitsX(unit.FromMeters(xMinMeters), unit.FromMeters(xMaxMeters), plot.Axes.Top);
+        // ScottPlot stacks the title over the top axis label; the unit goes on each tick instead.
+        plot.Axes.Bottom.Label.Text += string.Create(CultureInfo.InvariantCulture, $" at VF {velocityFactor:F3}  ·  top axis: round-trip time");
     }
 
     private static double NiceStep(double rough)

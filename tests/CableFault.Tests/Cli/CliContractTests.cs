@@ -70,3 +70,26 @@ public class CliContractTests : IDisposable
         Assert.Contains("dB/100m@100MHz", result.Output);
     }
 }
+
+public class SpecialOutputTests
+{
+    [Fact]
+    public void WritingToDevNullLeavesTheDeviceAlone()
+    {
+        if (!OperatingSystem.IsLinux()) return;
+        string folder = Directory.CreateTempSubdirectory("cf-null-").FullName;
+        try
+        {
+            string network = Path.Combine(folder, "ok.json");
+            File.WriteAllText(network, """{ "run": [ { "type": "segment", "length_m": 1, "cable": "RG-58" }, { "type": "end", "end": "open" } ] }""");
+            var result = CliRunner.Run("simulate", network, "-o", "/dev/null", "--samples", "64");
+            Assert.Equal(0, result.ExitCode);
+            // A rename over /dev/null would turn it into a regular file holding the CSV.
+            Assert.Equal("", File.ReadAllText("/dev/null"));
+        }
+        finally
+        {
+            Directory.Delete(folder, true);
+        }
+    }
+}
