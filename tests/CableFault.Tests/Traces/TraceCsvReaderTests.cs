@@ -267,4 +267,27 @@ public class TraceCsvReaderTests
         Assert.Empty(r.Warnings);
         AssertSamples([1, 2, 3], r.Trace);
     }
+
+    [Theory]
+    [InlineData("nan")]
+    [InlineData("-inf")]
+    [InlineData("+Infinity")]
+    [InlineData("1.#INF")]
+    [InlineData("∞")]
+    public void Every_spelling_of_nan_and_infinity_is_refused_as_not_finite(string spelling)
+    {
+        var ex = Assert.Throws<InputException>(() => ReadText($"time_ns,volts\n0,0\n1,{spelling}\n2,0\n"));
+        Assert.StartsWith("test.csv: line 3: ", ex.Message);
+        Assert.Contains("not a finite number", ex.Message);
+    }
+
+    [Fact]
+    public void A_units_row_under_a_names_row_serves_as_the_header()
+    {
+        // Some exports put names on one row and units on the next; the row next to the data is the one read.
+        var r = ReadText("Time,Ampl\nns,mV\n0,100\n1,200\n");
+        Assert.Empty(r.Warnings);
+        AssertClose(1e-9, r.Trace.SampleIntervalSeconds);
+        AssertSamples([0.1, 0.2], r.Trace);
+    }
 }

@@ -114,6 +114,10 @@ internal sealed class CsvNumberFormat
 
     private static bool IsNonFiniteWord(string field, out double value)
     {
+        value = 0;
+        // Fast path for the usual case: a number starts with a digit or a mark after any sign.
+        var span = field.AsSpan().Trim().TrimStart("+-");
+        if (span.IsEmpty || ((char.IsAsciiDigit(span[0]) || span[0] is '.' or ',') && !span.Contains('#'))) return false;
         string f = field.Trim().ToLowerInvariant();
         bool negative = f.StartsWith('-');
         string body = f.TrimStart('+', '-');
