@@ -17,7 +17,26 @@ internal static class StimulusSpectrum
     /// <summary>Full 0–100 % duration of a linear ramp with the given 10–90 % rise, s.</summary>
     internal static double RampSeconds(double riseTimeSeconds) => riseTimeSeconds / 0.8;
 
-    /// <summary>E(s): Gaussian exp(σ²s²/2); linear ramp sinh(sT/2)/(sT/2).</summary>
+    /// <summary>Ramp duration over the σ of the Gaussian that rounds the ramp's corners (see <see cref="EdgeShape.Linear"/>).</summary>
+    internal const double RampOverCornerSigma = 100;
+
+    /// <summary>σ of the Gaussian that rounds the linear ramp's corners, s.</summary>
+    internal static double CornerSigmaSeconds(double riseTimeSeconds) => RampSeconds(riseTimeSeconds) / RampOverCornerSigma;
+
+    /// <summary>σ of the Gaussian factor that band-limits the edge's spectrum, s.</summary>
+    private static double BandLimitSigmaSeconds(EdgeShape shape, double riseTimeSeconds) =>
+        shape == EdgeShape.Gaussian ? GaussianSigmaSeconds(riseTimeSeconds) : CornerSigmaSeconds(riseTimeSeconds);
+
+    /// <summary>
+    /// E(s): Gaussian exp(σ²s²/2); linear ramp sinh(sT/2)/(sT/2)·exp(σ_c²s²/2).
+    /// </summary>
+    /// <remarks>
+    /// The ramp alone is not band-limited: its spectrum falls only as 1/f², and cutting it off at the internal Nyquist
+    /// frequency leaves Gibbs ringing whose sinc tails decay only as 1/t. On the damped contour the samples are
+    /// multiplied back by e^(σt) (up to 10⁸ at the end of a record), so those tails grew into errors of several per cent
+    /// late in long records. The narrow Gaussian factor (σ_c = ramp/100) makes the spectrum negligible at the internal
+    /// Nyquist frequency, so the only effect left is a local rounding of the two corners.
+    /// </remarks>
     internal static Complex Evaluate(EdgeShape shape, double riseTimeSeconds, Complex s)
     {
         switch (shape)
@@ -27,7 +46,9 @@ internal static class StimulusSpectrum
                 return Complex.Exp(sigma * sigma * s * s / 2);
             case EdgeShape.Linear:
                 Complex x = s * RampSeconds(riseTimeSeconds) / 2;
-                return x.Magnitude < 1e-6 ? 1 + x * x / 6 : Complex.Sinh(x) / x;
+                double corner = CornerSigmaSeconds(riseTimeSeconds);
+                Complex rounding = Complex.Exp(corner * corner * s * s / 2);
+                return (x.Magnitude < 1e-6 ? 1 + x * x / 6 : Complex.Sinh(x) / x) * rounding;
             default:
                 throw new ArgumentOutOfRangeException(nameof(shape));
         }
@@ -35,12 +56,11 @@ internal static class StimulusSpectrum
 
     /// <summary>
     /// True when |E(s)| is below 1e-16 for this and every higher frequency on the contour, so the bin can be skipped.
-    /// Only the Gaussian edge is band-limited in this sense.
+    /// Both edges carry a Gaussian factor; the ramp's sinh(x)/x factor is at most about 1 on the contour (Re x ≪ 1).
     /// </summary>
     internal static bool IsNegligible(EdgeShape shape, double riseTimeSeconds, Complex s)
     {
-        if (shape != EdgeShape.Gaussian) return false;
-        double sigma = GaussianSigmaSeconds(riseTimeSeconds);
+        double sigma = BandLimitSigmaSeconds(shape, riseTimeSeconds);
         return sigma * sigma * (s.Real * s.Real - s.Imaginary * s.Imaginary) / 2 < -37;
     }
 
@@ -48,15 +68,11 @@ internal static class StimulusSpectrum
     internal static double LeadInSeconds(EdgeShape shape, double riseTimeSeconds) => shape switch
     {
         EdgeShape.Gaussian => 9 * GaussianSigmaSeconds(riseTimeSeconds),
-        _ => RampSeconds(riseTimeSeconds) / 2,
+        _ => RampSeconds(riseTimeSeconds) / 2 + 9 * CornerSigmaSeconds(riseTimeSeconds),
     };
 
+    // |E| at the Nyquist frequency π/Δt below e^-20 needs σπ/Δt > 6.3, i.e. Δt < 0.5σ of the band-limiting Gaussian.
     /// <summary>Largest internal sample interval that keeps the stimulus effectively band-limited, s.</summary>
-    internal static double MaximumInternalIntervalSeconds(EdgeShape shape, double riseTimeSeconds) => shape switch
-    {
-        // |E| at the Nyquist frequency π/Δt below e^-20 needs σπ/Δt > 6.3, i.e. Δt < 0.5σ.
-        EdgeShape.Gaussian => 0.5 * GaussianSigmaSeconds(riseTimeSeconds),
-        // A ramp's spectrum falls only as 1/f²: oversample so its corners are resolved to ~0.1 %.
-        _ => RampSeconds(riseTimeSeconds) / 32,
-    };
+    internal static double MaximumInternalIntervalSeconds(EdgeShape shape, double riseTimeSeconds) =>
+        0.5 * BandLimitSigmaSeconds(shape, riseTimeSeconds);
 }

@@ -1,0 +1,158 @@
+using System.Globalization;
+using System.Text;
+using ScottPlot;
+using SkiaSharp;
+
+namespace CableFault.Reporting.Plots;
+
+/// <summary>Renders a <see cref="Figure"/> to PNG bytes or SVG text with ScottPlot. Pure: nothing is written to disk here.</summary>
+public static class FigureRenderer
+{
+    private const int LeftPadding = 90, RightPadding = 30, BottomPadding = 55, TopPaddingFirst = 75, TopPadding = 40;
+
+    /// <summary>PNG image of the figure.</summary>
+    public static byte[] ToPng(Figure figure)
+    {
+        var plots = BuildPlots(figure);
+        int width = figure.WidthPixels, panel = figure.PanelHeightPixels, height = panel * plots.Count;
+        using var surface = SKSurface.Create(new SKImageInfo(width, height));
+        var canvas = surface.Canvas;
+        canvas.Clear(new SKColor(FigurePalette.Background.ARGB));
+        for (int i = 0; i < plots.Count; i++)
+        {
+            plots[i].Render(canvas, new PixelRect(0, width, (i + 1) * panel, i * panel));
+            plots[i].Dispose();
+        }
+        using var image = surface.Snapshot();
+        using var data = image.Encode(SKEncodedImageFormat.Png, 100);
+        return data.ToArray();
+    }
+
+    /// <summary>SVG document of the figure (panels nested as &lt;svg&gt; elements).</summary>
+    public static string ToSvg(Figure figure)
+    {
+        var plots = BuildPlots(figure);
+        int width = figure.WidthPixels, panel = figure.PanelHeightPixels, height = panel * plots.Count;
+        var svg = new StringBuilder();
+        svg.Append(CultureInfo.InvariantCulture, $"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width}\" height=\"{height}\" viewBox=\"0 0 {width} {height}\">");
+        for (int i = 0; i < plots.Count; i++)
+        {
+            string inner = plots[i].GetSvgXml(width, panel);
+            plots[i].Dispose();
+            int start = inner.IndexOf("<svg", StringComparison.Ordinal);
+            inner = inner[start..];
+            inner = inner.Insert(4, string.Create(CultureInfo.InvariantCulture, $" x=\"0\" y=\"{i * panel}\""));
+            svg.Append(inner);
+        }
+        svg.Append("</svg>");
+        return svg.ToString();
+    }
+
+    private static List<Plot> BuildPlots(Figure figure)
+    {
+        var unit = figure.Unit;
+        var (xMin, xMax) = DistanceRange(figure);
+        var plots = new List<Plot>();
+        for (int p = 0; p < figure.Panels.Count; p++)
+        {
+            var panel = figure.Panels[p];
+            var plot = new Plot();
+            plot.FigureBackground.Color = FigurePalette.Background;
+            plot.DataBackground.Color = Colors.White;
+            plot.Grid.MajorLineColor = FigurePalette.Grid;
+            plot.Layout.Fixed(new PixelPadding(LeftPadding, RightPadding, BottomPadding, p == 0 ? TopPaddingFirst : TopPadding));
+            plot.Title(p == 0 && figure.Title.Length > 0 ? $"{figure.Title}\n{panel.Title}" : panel.Title, 15);
+            plot.XLabel($"Distance from connector ({unit.Symbol})", 13);
+            plot.YLabel(panel.YLabel, 13);
+
+            if (panel.ShadedRegion is { } region)
+            {
+                var span = plot.Add.HorizontalSpan(unit.FromMeters(region.StartMeters), unit.FromMeters(region.EndMeters), FigurePalette.Shade.WithAlpha(0.8));
+                span.LegendText = panel.ShadedRegionLabel;
+            }
+            if (panel.Band is { } band)
+            {
+                var bandSpan = plot.Add.VerticalSpan(band.Low, band.High, FigurePalette.Shade.WithAlpha(0.9));
+                bandSpan.LegendText = "noise band";
+            }
+            foreach (var series in panel.Series) AddSeries(plot, series, unit);
+            foreach (var marker in panel.Markers) AddMarker(plot, marker, unit);
+
+            plot.Axes.SetLimitsX(unit.FromMeters(xMin), unit.FromMeters(xMax));
+            if (panel.YRange is { } yRange) plot.Axes.SetLimitsY(yRange.Low, yRange.High);
+            else plot.Axes.AutoScaleY();
+            if (p == 0 && figure.VelocityFactor is double vf) AddTimeAxis(plot, unit, xMin, xMax, vf);
+            if (panel.Series.Count > 1 || panel.ShadedRegion is not null || panel.Band is not null)
+                plot.ShowLegend(Alignment.LowerRight);
+            plots.Add(plot);
+        }
+        return plots;
+    }
+
+    private static (double Min, double Max) DistanceRange(Figure figure)
+    {
+        if (figure.DistanceRangeMeters is { } range) return range;
+        double min = double.PositiveInfinity, max = double.NegativeInfinity;
+        foreach (var series in figure.Panels.SelectMany(p => p.Series))
+            foreach (double d in series.DistancesMeters)
+            {
+                min = Math.Min(min, d);
+                max = Math.Max(max, d);
+            }
+        return double.IsFinite(min) && max > min ? (min, max) : (0, 1);
+    }
+
+    private static void AddSeries(Plot plot, FigureSeries series, DistanceUnit unit)
+    {
+        var xs = series.DistancesMeters.Select(unit.FromMeters).ToArray();
+        var line = plot.Add.ScatterLine(xs, series.Values);
+        line.LegendText = series.Name;
+        line.MarkerSize = 0;
+        switch (series.Style)
+        {
+            case SeriesStyle.Primary: line.Color = FigurePalette.Trace; line.LineWidth = 2; break;
+            case SeriesStyle.Secondary: line.Color = FigurePalette.SecondTrace; line.LineWidth = 2; line.LinePattern = LinePattern.Dashed; break;
+            case SeriesStyle.Profile: line.Color = FigurePalette.Profile; line.LineWidth = 2; break;
+            case SeriesStyle.Difference: line.Color = FigurePalette.Finding; line.LineWidth = 1.5f; break;
+        }
+    }
+
+    private static void AddMarker(Plot plot, FigureMarker marker, DistanceUnit unit)
+    {
+        var color = marker.Emphasised ? FigurePalette.Finding : FigurePalette.QuietFinding;
+        var line = plot.Add.VerticalLine(unit.FromMeters(marker.DistanceMeters), marker.Emphasised ? 2f : 1.5f, color,
+            marker.Emphasised ? LinePattern.Solid : LinePattern.Dotted);
+        line.Text = marker.Label;
+        line.LabelOppositeAxis = true;
+        line.TextRotation = -90;
+        line.TextSize = 12;
+        line.TextBackgroundColor = color;
+        line.TextColor = Colors.White;
+    }
+
+    /// <summary>Top axis: round-trip time t = 2d/v in ns, at "nice" tick values.</summary>
+    private static void AddTimeAxis(Plot plot, DistanceUnit unit, double xMinMeters, double xMaxMeters, double velocityFactor)
+    {
+        double v = velocityFactor * PhysicalConstants.SpeedOfLightMetersPerSecond;
+        double tMin = 2 * xMinMeters / v * 1e9, tMax = 2 * xMaxMeters / v * 1e9;
+        double step = NiceStep((tMax - tMin) / 8);
+        var ticks = new ScottPlot.TickGenerators.NumericManual();
+        for (double t = Math.Ceiling(tMin / step) * step; t <= tMax + step * 1e-9; t += step)
+        {
+            double meters = t * 1e-9 * v / 2;
+            ticks.AddMajor(unit.FromMeters(meters), t.ToString(step >= 1 ? "F0" : "G3", CultureInfo.InvariantCulture));
+        }
+        plot.Axes.Top.TickGenerator = ticks;
+        plot.Axes.Top.Label.Text = string.Create(CultureInfo.InvariantCulture, $"Round-trip time (ns), VF {velocityFactor:F3}");
+        plot.Axes.Top.Label.FontSize = 12;
+    }
+
+    private static double NiceStep(double rough)
+    {
+        if (!(rough > 0) || !double.IsFinite(rough)) return 1;
+        double power = Math.Pow(10, Math.Floor(Math.Log10(rough)));
+        double fraction = rough / power;
+        double nice = fraction < 1.5 ? 1 : fraction < 3.5 ? 2 : fraction < 7.5 ? 5 : 10;
+        return nice * power;
+    }
+}
