@@ -1,0 +1,84 @@
+namespace CableFault.Analysis;
+
+/// <summary>
+/// Names each fitted event (DESIGN.md §4 vocabulary), gives its reflection coefficient and size, and says how sure
+/// that is. Falls back to <see cref="EventKind.Unknown"/> when the evidence for the kind is weak.
+/// </summary>
+internal static class EventClassifier
+{
+    /// <summary>|ρ| from which a boundary is called an open or a short (common practice: a lossy line's far open
+    /// rarely shows the full +1).</summary>
+    internal const double EndReflection = 0.85;
+
+    /// <summary>Peak signature over noise below which the kind is not named (an event this faint is found, not read).</summary>
+    internal const double MinimumKindSignalToNoise = 5;
+
+    /// <summary>Relative standard error of the size above which the kind is not named: the data cannot tell its size to
+    /// better than a factor e^0.5.</summary>
+    internal const double MaximumLogSizeSigma = 0.5;
+
+    /// <summary>Signal-to-noise scale of the confidence: 1 − e^(−SNR/5), so SNR 5 → 0.63, 10 → 0.86, 20 → 0.98.</summary>
+    internal const double ConfidenceSignalToNoiseScale = 5;
+
+    /// <summary>Rise times of record needed after the last lasting step before it is called a termination rather than
+    /// a change of line that runs on past the record.</summary>
+    internal const double TerminationTailRiseTimes = 10;
+
+    /// <summary>What the classifier is told about one event.</summary>
+    /// <param name="Element">Its kind in the model.</param>
+    /// <param name="Value">Its size (Ω after a boundary, F, H, Ω, s).</param>
+    /// <param name="ImpedanceBeforeOhms">Line impedance before it, Ω.</param>
+    /// <param name="LogSizeSigma">Standard error of ln(size).</param>
+    /// <param name="PeakSignatureVolts">Largest |model with − model without|, V (signed).</param>
+    /// <param name="IncidentLevelVolts">Height of the incident plateau at the port, V.</param>
+    /// <param name="NoiseRmsVolts">Noise RMS of an analysed sample, V.</param>
+    /// <param name="DeltaBic">BIC earned by the event.</param>
+    /// <param name="IsLastOnMainLine">True when no other event lies after it on the main line.</param>
+    /// <param name="RecordAfterSeconds">Record length after the event, s.</param>
+    /// <param name="RiseSeconds">Effective rise time, s.</param>
+    internal sealed record Input(RunModelElement Element, double Value, double ImpedanceBeforeOhms, double LogSizeSigma,
+        double PeakSignatureVolts, double IncidentLevelVolts, double NoiseRmsVolts, double DeltaBic, bool IsLastOnMainLine,
+        double RecordAfterSeconds, double RiseSeconds);
+
+    /// <summary>Kind, reflection, impedance after, size and confidence.</summary>
+    internal static (EventKind Kind, double Reflection, double? ImpedanceOhms, double? Value, double Confidence) Classify(Input e)
+    {
+        double z = e.ImpedanceBeforeOhms;
+        double snr = Math.Abs(e.PeakSignatureVolts) / Math.Max(e.NoiseRmsVolts, 1e-300);
+        // Posterior odds of "event" against "no event" with equal priors: exp(ΔBIC/2) (Kass & Raftery 1995, §4.1).
+        double pReal = 1 / (1 + Math.Exp(-Math.Clamp(e.DeltaBic, -700, 700) / 2));
+        double confidence = pReal * (1 - Math.Exp(-snr / ConfidenceSignalToNoiseScale));
+        bool sizeKnown = e.Element is RunModelElement.Open or RunModelElement.Short || e.LogSizeSigma <= MaximumLogSizeSigma;
+        bool weak = snr < MinimumKindSignalToNoise || !sizeKnown;
+
+        (EventKind kind, double rho, double? impedance, double? value) = e.Element switch
+        {
+            RunModelElement.Open => (EventKind.Open, 1.0, (double?)null, (double?)null),
+            RunModelElement.Short => (EventKind.Short, -1.0, null, null),
+            RunModelElement.Boundary => Boundary(e, z),
+            RunModelElement.ShuntCapacitor => (EventKind.Capacitive, e.PeakSignatureVolts / e.IncidentLevelVolts, null, e.Value),
+            RunModelElement.SeriesInductor => (EventKind.Inductive, e.PeakSignatureVolts / e.IncidentLevelVolts, null, e.Value),
+            // Shunt R across Z: ρ = −Z/(2R + Z); series R: ρ = R/(R + 2Z) (DESIGN.md §2).
+            RunModelElement.ShuntResistor => (EventKind.PartialShort, -z / (2 * e.Value + z), null, e.Value),
+            RunModelElement.SeriesResistor => (EventKind.SeriesResistance, e.Value / (e.Value + 2 * z), null, e.Value),
+            // Two equal lines in parallel, Z/2 on a line of Z: ρ = −1/3 (DESIGN.md §2).
+            RunModelElement.Tap => (EventKind.Tap, -1.0 / 3, null, null),
+            _ => (EventKind.Unknown, double.NaN, null, null),
+        };
+        if (weak && kind is not (EventKind.Open or EventKind.Short)) kind = EventKind.Unknown;
+        return (kind, rho, impedance, value, Math.Clamp(confidence, 0, 1));
+    }
+
+    private static (EventKind, double, double?, double?) Boundary(Input e, double z)
+    {
+        // ρ = (Z − Z_prev)/(Z + Z_prev) (Pozar, Microwave Engineering, 4th ed., eq. 2.35).
+        double rho = (e.Value - z) / (e.Value + z);
+        if (rho >= EndReflection) return (EventKind.Open, rho, null, null);
+        if (rho <= -EndReflection) return (EventKind.Short, rho, null, null);
+        // A lasting step with nothing after it and plenty of record: the run ends in a resistance of that many ohms
+        // (a matched line of Z behaves as a resistor Z for a step).
+        if (e.IsLastOnMainLine && e.RecordAfterSeconds >= TerminationTailRiseTimes * e.RiseSeconds)
+            return (EventKind.Termination, rho, null, e.Value);
+        return (rho > 0 ? EventKind.ImpedanceRise : EventKind.ImpedanceDrop, rho, e.Value, null);
+    }
+}

@@ -1,0 +1,95 @@
+using CableFault.Traces;
+
+namespace CableFault.Analysis;
+
+/// <summary>
+/// The samples the model is fitted to: a window of the aligned trace, possibly low-passed by a Gaussian and
+/// decimated so that the fit costs the same whatever the record length.
+/// </summary>
+internal sealed class FitData
+{
+    /// <summary>Most rise times a window may span before it is smoothed: bounds the forward model's frequency bins
+    /// (about 5 per rise time spanned) and so the cost of one model evaluation.</summary>
+    internal const double MaximumRiseTimesPerWindow = 320;
+
+    /// <summary>Gaussian σ of a 10–90 % rise, in units of the rise: 1/(2√2·erf⁻¹(0.8)).</summary>
+    private const double SigmaPerRise = 1 / 2.5631031310892007;
+
+    private FitData(double[] samples, double startTimeSeconds, double intervalSeconds, double filterSigmaSeconds,
+        double noiseRmsVolts, double independentFraction)
+    {
+        Samples = samples;
+        StartTimeSeconds = startTimeSeconds;
+        IntervalSeconds = intervalSeconds;
+        FilterSigmaSeconds = filterSigmaSeconds;
+        NoiseRmsVolts = noiseRmsVolts;
+        IndependentFraction = independentFraction;
+    }
+
+    internal double[] Samples { get; }
+    internal double StartTimeSeconds { get; }
+    internal double IntervalSeconds { get; }
+
+    /// <summary>σ of the Gaussian low-pass applied to the data, s (0 when none).</summary>
+    internal double FilterSigmaSeconds { get; }
+
+    /// <summary>Noise RMS of one analysed sample, V (after the low-pass).</summary>
+    internal double NoiseRmsVolts { get; }
+
+    /// <summary>
+    /// Independent samples per analysed sample, (0, 1]: Gaussian-filtered white noise has a correlation time
+    /// ∫ρ(τ)dτ = 2√π·σ_g, so n samples spaced Δt carry n·Δt/(2√π·σ_g) independent values.
+    /// </summary>
+    internal double IndependentFraction { get; }
+
+    internal double TimeAt(int index) => StartTimeSeconds + index * IntervalSeconds;
+
+    /// <summary>
+    /// Cuts the window [startSeconds, endSeconds] from an aligned trace; when it spans more than
+    /// <see cref="MaximumRiseTimesPerWindow"/> rise times, smooths with a Gaussian so that the effective rise is
+    /// span/<see cref="MaximumRiseTimesPerWindow"/> and keeps every k-th sample (about two per effective σ).
+    /// </summary>
+    internal static FitData Prepare(Trace aligned, double startSeconds, double endSeconds, double riseSeconds, double noiseRmsVolts)
+    {
+        double dt = aligned.SampleIntervalSeconds;
+        int first = Math.Max(0, (int)Math.Ceiling((startSeconds - aligned.StartTimeSeconds) / dt));
+        int last = Math.Min(aligned.Length - 1, (int)Math.Floor((endSeconds - aligned.StartTimeSeconds) / dt));
+        if (last - first < 8) throw new ArgumentException("The fit window holds fewer than 8 samples.");
+        double span = (last - first) * dt;
+        double sigmaRise = riseSeconds * SigmaPerRise;
+        double sigmaEffective = Math.Max(sigmaRise, span / MaximumRiseTimesPerWindow * SigmaPerRise);
+        double sigmaFilter = sigmaEffective > sigmaRise * 1.0001 ? Math.Sqrt(sigmaEffective * sigmaEffective - sigmaRise * sigmaRise) : 0;
+        int stride = sigmaFilter > 0 ? Math.Max(1, (int)Math.Floor(0.5 * sigmaEffective / dt)) : 1;
+        var samples = aligned.SamplesVolts;
+        int count = (last - first) / stride + 1;
+        var y = new double[count];
+        if (sigmaFilter == 0)
+        {
+            for (int j = 0; j < count; j++) y[j] = samples[first + j * stride];
+            return new FitData(y, aligned.TimeAt(first), dt, 0, noiseRmsVolts, 1);
+        }
+        // Gaussian kernel truncated at ±4σ (weight beyond is 6e-5), evaluated only at the kept samples.
+        double sigmaSamples = sigmaFilter / dt;
+        int half = (int)Math.Ceiling(4 * sigmaSamples);
+        var kernel = new double[2 * half + 1];
+        double sum = 0;
+        for (int m = -half; m <= half; m++) sum += kernel[m + half] = Math.Exp(-0.5 * m * m / (sigmaSamples * sigmaSamples));
+        double sumSquares = 0;
+        for (int m = 0; m < kernel.Length; m++) { kernel[m] /= sum; sumSquares += kernel[m] * kernel[m]; }
+        for (int j = 0; j < count; j++)
+        {
+            int centre = first + j * stride;
+            double acc = 0, weight = 0;
+            for (int m = -half; m <= half; m++)
+            {
+                int i = centre + m;
+                // Beyond the record's ends, hold the end value (the level there is flat to within the noise).
+                acc += kernel[m + half] * samples[Math.Clamp(i, 0, samples.Length - 1)];
+                weight += kernel[m + half];
+            }
+            y[j] = acc / weight;
+        }
+        double independent = Math.Min(1, stride * dt / (2 * Math.Sqrt(Math.PI) * sigmaFilter));
+        return new FitData(y, aligned.TimeAt(first), stride * dt, sigmaFilter, noiseRmsVolts * Math.Sqrt(sumSquares), independent);
+    }
+}

@@ -1,0 +1,169 @@
+using System.Globalization;
+using CableFault.Traces;
+
+namespace CableFault.Analysis;
+
+/// <summary>
+/// The front door of the analysis: characterise → align → profile → detect → fit → classify.
+/// </summary>
+public static class Locator
+{
+    /// <summary>Rise times of baseline before the incident edge kept in the fit window (the edge's position, height
+    /// and rise are fitted along with the events).</summary>
+    internal const double WindowLeadRiseTimes = 6;
+
+    /// <summary>Rise times of record kept after the last candidate: the step settles, and a lumped event's tail and the
+    /// level after it (which tells an end from a change of line) are seen.</summary>
+    internal const double WindowTailRiseTimes = 24;
+
+    /// <summary>Blind zone in rise times of round trip: one rise time plus the half of the edge before its 50 % point.</summary>
+    internal const double BlindZoneRiseTimes = 1.5;
+
+    /// <summary>Incident step over noise below which a trace is hopeless: nothing in it can be read (a reflection is at
+    /// most as large as the step).</summary>
+    internal const double MinimumIncidentSignalToNoise = 5;
+
+    /// <summary>Finds and classifies every event on the run. Throws <see cref="InputException"/> on hopeless input
+    /// (no incident edge, noise as large as the step, invalid options).</summary>
+    public static LocateResult Locate(Trace raw, LocateOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(raw);
+        ArgumentNullException.ThrowIfNull(options);
+        var problems = options.Problems();
+        if (problems.Count > 0) throw new InputException("locate options: " + string.Join("; ", problems) + ".");
+        var characteristics = TraceConditioner.Characterise(raw);
+        if (!(characteristics.IncidentAmplitudeVolts > MinimumIncidentSignalToNoise * characteristics.NoiseRmsVolts))
+            throw new InputException(string.Create(CultureInfo.InvariantCulture,
+                $"trace: the incident step ({characteristics.IncidentAmplitudeVolts:G3} V) is not clearly above the noise ({characteristics.NoiseRmsVolts:G3} V RMS); check the connection and averaging, then measure again."));
+        options.Progress?.Report(0.1);
+        var aligned = TraceConditioner.Align(raw, characteristics);
+        var profile = LayerPeeling.Profile(aligned, characteristics, options.ImpedanceOhms, options.VelocityFactor,
+            options.Loss, options.SourceImpedanceOhms);
+        options.Progress?.Report(0.2);
+        var candidates = EventDetector.Detect(aligned, characteristics, profile);
+        options.Progress?.Report(0.3);
+        var result = Refine(aligned, characteristics, profile, candidates, options);
+        options.Progress?.Report(1.0);
+        return result;
+    }
+
+    /// <summary>Like <see cref="Locate"/>, but returns false with a one-line message instead of throwing on bad input.</summary>
+    public static bool TryLocate(Trace raw, LocateOptions options, out LocateResult? result, out string? error)
+    {
+        try
+        {
+            result = Locate(raw, options);
+            error = null;
+            return true;
+        }
+        catch (InputException e)
+        {
+            result = null;
+            error = e.Message;
+            return false;
+        }
+    }
+
+    /// <summary>The fit and classification, from the conditioning's outputs.</summary>
+    internal static LocateResult Refine(Trace aligned, TraceCharacteristics characteristics, ImpedanceProfile profile,
+        IReadOnlyList<EventCandidate> candidates, LocateOptions options)
+    {
+        var warnings = characteristics.Warnings.ToList();
+        double rise = characteristics.RiseTimeSeconds;
+        double v = options.VelocityFactor * PhysicalConstants.SpeedOfLightMetersPerSecond;
+        double offset = options.TimeZeroOffsetSeconds ?? 0;
+        double blindSeconds = BlindZoneRiseTimes * rise;
+        double blindMeters = v * blindSeconds / 2;
+        if (candidates.Any(c => c.RoundTripSeconds <= blindSeconds))
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"something changes within the blind zone ({blindMeters:0.###} m); add a launch cable longer than that to see it."));
+
+        double z0 = options.ImpedanceOhms, zs = options.SourceImpedanceOhms;
+        // The port sees the divider 2A·Z₀/(Z_s + Z₀) on the first plateau (DESIGN.md §2): A is V_s/2.
+        double amplitude = characteristics.IncidentAmplitudeVolts * (zs + z0) / (2 * z0);
+        var context = new RunModelContext(options.VelocityFactor, z0, zs, options.Loss, rise, amplitude);
+
+        if (!options.RefineWithModel)
+            return Unrefined(aligned, characteristics, profile, candidates, options, warnings, blindSeconds, blindMeters, v, offset);
+
+        var initial = RunModelBuilder.FromCandidates(context, amplitude, rise, candidates, blindSeconds);
+        double tailTau = initial.Events.Select(e => e.Element switch
+        {
+            RunModelElement.ShuntCapacitor => e.Value * z0 / 2,
+            RunModelElement.SeriesInductor => e.Value / (2 * z0),
+            _ => 0,
+        }).DefaultIfEmpty(0).Max();
+        double lastTime = initial.Events.Count > 0 ? initial.Events[^1].RoundTripSeconds : 0;
+        double firstTime = initial.Events.Count > 0 ? initial.Events[0].RoundTripSeconds : 0;
+        // Keep the first echoes of the last event off the earlier ones (at t_last + (t_last − t_i)): they carry the
+        // levels that tell a shunt resistor from an impedance drop and a termination from a change of line.
+        double end = lastTime + Math.Max(WindowTailRiseTimes * rise + 5 * tailTau, lastTime - firstTime + 8 * rise);
+        var data = FitData.Prepare(aligned, -WindowLeadRiseTimes * rise, end, rise, characteristics.NoiseRmsVolts);
+        double sigmaEffective = Math.Sqrt(Math.Pow(rise / 2.5631031310892007, 2) + data.FilterSigmaSeconds * data.FilterSigmaSeconds);
+        double riseEffective = sigmaEffective * 2.5631031310892007;
+        if (data.FilterSigmaSeconds > 0)
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"long record: the model was fitted with an effective rise of {riseEffective * 1e9:0.###} ns, so events closer than about {v * riseEffective / 2:0.###} m may show as one."));
+        options.Progress?.Report(0.4);
+
+        var selection = ModelSelection.Select(initial, data, riseEffective, options.CancellationToken);
+        var fit = selection.Fit;
+        var model = fit.Model;
+        var covariance = ModelFitter.Covariance(fit, selection.VarianceVolts2, data.IndependentFraction);
+        double incidentLevel = 2 * model.AmplitudeVolts * z0 / (zs + z0);
+        double recordEnd = aligned.EndTimeSeconds - model.TimeOffsetSeconds;
+
+        var located = new List<LocatedEvent>();
+        for (int i = 0; i < model.Events.Count; i++)
+        {
+            var e = model.Events[i];
+            int tIndex = model.TimeParameterIndex(i);
+            double sigmaT = Math.Sqrt(Math.Max(0, covariance[tIndex, tIndex])) * context.ReferenceRiseSeconds;
+            double sigmaLog = e.HasValue ? Math.Sqrt(Math.Max(0, covariance[tIndex + 1, tIndex + 1])) : 0;
+            bool lastOnMain = i == model.Events.Count - 1;
+            var (kind, rho, impedance, value, confidence) = EventClassifier.Classify(new EventClassifier.Input(
+                e.Element, e.Value, RunModelBuilder.ImpedanceBefore(model, i), sigmaLog,
+                selection.Events[i].PeakSignatureVolts, incidentLevel, Math.Sqrt(selection.VarianceVolts2),
+                selection.Events[i].DeltaBic, lastOnMain, recordEnd - e.RoundTripSeconds, riseEffective));
+            double t = e.RoundTripSeconds - offset;
+            double d = v * t / 2;
+            double sigmaD = Math.Sqrt(Math.Pow(v * sigmaT / 2, 2) + Math.Pow(d * options.VelocityFactorRelativeSigma, 2));
+            located.Add(new LocatedEvent(d, sigmaD, kind, rho, impedance, value, confidence, t));
+            if (e.Element == RunModelElement.Tap)
+                warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"tap at {d:0.###} m: its branch is about {v * e.Value / 2:0.###} m long (open-ended, assumed of the same cable)."));
+        }
+
+        double rms = Math.Sqrt(fit.ResidualSumOfSquares / data.Samples.Length);
+        if (rms > 3 * Math.Sqrt(selection.VarianceVolts2))
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"the model leaves a residual of {rms:G3} V RMS, {rms / Math.Sqrt(selection.VarianceVolts2):0.#} times the noise: part of the trace is not explained; check the cable settings (Z0, VF, loss)."));
+        if (!fit.Converged) warnings.Add("the model fit stopped at its iteration limit; positions are from the last iterate.");
+        string message = string.Create(CultureInfo.InvariantCulture,
+            $"{model.Events.Count} event(s); Levenberg–Marquardt on {data.Samples.Length} samples from {data.StartTimeSeconds * 1e9:0.##} to {data.TimeAt(data.Samples.Length - 1) * 1e9:0.##} ns{(data.FilterSigmaSeconds > 0 ? $" (smoothed to {riseEffective * 1e9:0.###} ns rise)" : "")}; {selection.Trials} alternative model(s) tried; BIC with noise {Math.Sqrt(selection.VarianceVolts2):G3} V.");
+        var report = new FitReport(fit.Converged, fit.Iterations, rms, model.ParameterCount, "BIC", message);
+        var modelTrace = new Trace(data.StartTimeSeconds, data.IntervalSeconds, fit.ModelSamples);
+        return new LocateResult(aligned, characteristics, profile, located.OrderBy(e => e.DistanceMeters).ToList(), report,
+            blindMeters, options, warnings, modelTrace);
+    }
+
+    /// <summary>The candidates as detected, without the model: positions from the detector, sizes from the profile.</summary>
+    private static LocateResult Unrefined(Trace aligned, TraceCharacteristics characteristics, ImpedanceProfile profile,
+        IReadOnlyList<EventCandidate> candidates, LocateOptions options, List<string> warnings, double blindSeconds,
+        double blindMeters, double v, double offset)
+    {
+        var located = new List<LocatedEvent>();
+        foreach (var c in candidates.Where(c => c.RoundTripSeconds > blindSeconds))
+        {
+            double t = c.RoundTripSeconds - offset;
+            double d = v * t / 2;
+            // Without a model the time is known to about a sample; the VF uncertainty adds in quadrature.
+            double sigmaT = aligned.SampleIntervalSeconds;
+            double sigmaD = Math.Sqrt(Math.Pow(v * sigmaT / 2, 2) + Math.Pow(d * options.VelocityFactorRelativeSigma, 2));
+            double confidence = 1 - Math.Exp(-c.SignalToNoise / EventClassifier.ConfidenceSignalToNoiseScale);
+            located.Add(new LocatedEvent(d, sigmaD, EventKind.Unknown, c.ReflectionStep, c.ImpedanceAfterOhms, null, confidence, t));
+        }
+        var report = new FitReport(false, 0, double.NaN, 0, "none", "model refinement switched off; events as detected, kinds not named.");
+        return new LocateResult(aligned, characteristics, profile, located, report, blindMeters, options, warnings, null);
+    }
+}

@@ -1,0 +1,288 @@
+namespace CableFault.Analysis;
+
+/// <summary>
+/// Chooses how many events the run model has, and of which kind, by the Bayesian information criterion with the
+/// noise variance known from conditioning: BIC = χ² + k·ln n, χ² = ν·RSS/σ², n = ν·N
+/// (Schwarz, <i>Ann. Statist.</i> 6, 1978; with known σ² the −2 ln L term is χ² up to a constant), where ν is the
+/// fraction of independent samples (1 for raw samples, less after the Gaussian low-pass).
+/// </summary>
+/// <remarks>
+/// <para>Why BIC: its penalty ln n per parameter grows with the record, so a long noisy record does not sprout
+/// events from noise peaks (AIC's fixed 2 per parameter would), and with σ² known it needs no estimate of the misfit.
+/// A more complex model must win by <see cref="EvidenceMargin"/> (Kass &amp; Raftery, <i>J. Am. Stat. Assoc.</i> 90, 1995:
+/// ΔBIC &gt; 2 is "positive" evidence).</para>
+/// <para>σ² is floored at (<see cref="ModellingFloorRelative"/>·A)²: a measured trace never matches the model to the
+/// last microvolt (edge shape, loss model, sampler linearity), and that misfit must not pass for evidence.</para>
+/// <para>Moves: an end (open/short) for a boundary near ρ = ±1; removal of each event whose evidence is negative;
+/// alternative kinds where the later trace can tell them apart (a shunt resistor or a tap instead of an impedance drop,
+/// a series resistor instead of a rise); merging of neighbours closer than an effective rise; and splitting an event
+/// into two where the residual around it is larger than the noise allows.</para>
+/// </remarks>
+internal static class ModelSelection
+{
+    /// <summary>BIC units by which a more complex model must win (Kass &amp; Raftery 1995: "positive evidence").</summary>
+    internal const double EvidenceMargin = 2;
+
+    /// <summary>Floor of the noise RMS relative to the incident amplitude (−74 dB): the model's accuracy on a real
+    /// trace (common practice for a sampler's linearity, from memory).</summary>
+    internal const double ModellingFloorRelative = 2e-4;
+
+    /// <summary>Boundaries beyond |ρ| of this are tried as an exact open or short.</summary>
+    private const double EndTrialReflection = 0.8;
+
+    /// <summary>The last boundary is tried as an open or short from this |ρ|: what lies before an end can make it look
+    /// smaller until the rest of the model is right.</summary>
+    private const double LastEndTrialReflection = 0.3;
+
+    /// <summary>Most split rounds (each may split one event).</summary>
+    private const int MaximumSplitRounds = 4;
+
+    /// <summary>Iteration limit of a trial fit (warm started from a fitted model).</summary>
+    private const int TrialIterations = 25;
+
+    /// <summary>The selected model, the variance used, its criterion and each event's evidence.</summary>
+    internal sealed record Result(ModelFit Fit, double VarianceVolts2, double Bic, IReadOnlyList<Evidence> Events, int Trials);
+
+    /// <summary>What the data say about one event: ΔBIC when it is removed (others fixed) and its peak signature.</summary>
+    /// <param name="DeltaBic">BIC without the event minus BIC with it; positive means the event is supported.</param>
+    /// <param name="PeakSignatureVolts">Largest |model with − model without| over the window, V (signed).</param>
+    internal sealed record Evidence(double DeltaBic, double PeakSignatureVolts);
+
+    /// <summary>Diagnostic log of the trials (null in normal use).</summary>
+    internal static Action<string>? Log;
+
+    internal static Result Select(RunModel initial, FitData data, double effectiveRiseSeconds, CancellationToken cancellation = default)
+    {
+        double variance = Math.Max(data.NoiseRmsVolts * data.NoiseRmsVolts,
+            Math.Pow(ModellingFloorRelative * initial.Context.ReferenceAmplitudeVolts, 2));
+        double nu = data.IndependentFraction;
+        double logN = Math.Log(Math.Max(2, nu * data.Samples.Length));
+        double Bic(ModelFit f) => nu * f.ResidualSumOfSquares / variance + f.Model.ParameterCount * logN;
+        int trials = 0;
+
+        var best = ModelFitter.Fit(initial, data, variance, cancellation: cancellation);
+        double bestBic = Bic(best);
+        Log?.Invoke($"initial BIC {bestBic:0.#} ({best.Iterations} it)");
+
+        // A trial frees the events it changed, the one before, and every event after: a change alters what reaches the
+        // later events and the levels and echoes they set, while the earlier part of the run is already fitted and
+        // barely moves. The incident edge (amplitude, offset, rise) is free too: a wrong model bends it.
+        bool TryAccept(RunModel candidate, bool simpler, params int[] focus)
+        {
+            trials++;
+            var free = new bool[candidate.ParameterCount];
+            for (int g = 0; g < RunModel.GlobalParameterCount; g++) free[g] = true;
+            int firstFree = Math.Max(0, focus.Min() - 1);
+            for (int i = firstFree; i < candidate.Events.Count; i++)
+            {
+                int k = candidate.TimeParameterIndex(i);
+                free[k] = true;
+                if (candidate.Events[i].HasValue) free[k + 1] = true;
+            }
+            var fit = ModelFitter.Fit(candidate, data, variance, free, TrialIterations, cancellation);
+            double bic = Bic(fit);
+            bool accept = simpler ? bic < bestBic + EvidenceMargin : bic < bestBic - EvidenceMargin;
+            if (Log is not null) Log($"  start BIC {nu * ModelFitter.ResidualSumOfSquares(candidate, data) / variance + candidate.ParameterCount * logN:0.#}");
+            Log?.Invoke($"trial {string.Join(",", candidate.Events.Select(e => e.Element.ToString()[..2]))}: BIC {bic:0.#} vs {bestBic:0.#} ({fit.Iterations} it, {(fit.Converged ? "conv" : "not conv")}) {(accept ? "ACCEPT" : "reject")}");
+            if (accept) { best = fit; bestBic = bic; }
+            return accept;
+        }
+
+        TryEnds();
+        Prune();
+
+        // Alternative kinds, where what follows can tell them apart.
+        for (int i = 0; i < best.Model.Events.Count; i++)
+        {
+            var m = best.Model;
+            var e = m.Events[i];
+            if (e.Element != RunModelElement.Boundary || i == m.Events.Count - 1) continue;
+            double zPrev = RunModelBuilder.ImpedanceBefore(m, i);
+            double rho = LocalReflection(m, i);
+            if (rho < 0)
+            {
+                var list = m.Events.ToList();
+                list[i] = e with { Element = RunModelElement.ShuntResistor, Value = zPrev * e.Value / Math.Max(zPrev - e.Value, 1e-9) };
+                if (TryAccept(m.WithEvents(list), simpler: true, i)) continue;
+                if (rho > -0.6 && rho < -0.1)
+                {
+                    // A tap: the drop and a later rise (the branch end's echo) become one junction with an open branch.
+                    foreach (int j in Enumerable.Range(i + 1, m.Events.Count - i - 1)
+                                 .Where(j => m.Events[j].Element == RunModelElement.Boundary && LocalReflection(m, j) > 0).Take(3))
+                    {
+                        var tapList = m.Events.ToList();
+                        tapList[i] = e with { Element = RunModelElement.Tap, Value = m.Events[j].RoundTripSeconds - e.RoundTripSeconds };
+                        tapList.RemoveAt(j);
+                        if (TryAccept(m.WithEvents(tapList), simpler: true, i, j - 1)) break;
+                    }
+                }
+            }
+            else
+            {
+                var list = m.Events.ToList();
+                list[i] = e with { Element = RunModelElement.SeriesResistor, Value = Math.Max(e.Value - zPrev, 1e-6) };
+                TryAccept(m.WithEvents(list), simpler: true, i);
+            }
+        }
+
+        TryEnds();
+
+        // Merge neighbours closer than an effective rise (one event may have been detected twice).
+        for (int i = 0; i + 1 < best.Model.Events.Count; i++)
+        {
+            var m = best.Model;
+            if (m.Events[i + 1].RoundTripSeconds - m.Events[i].RoundTripSeconds > effectiveRiseSeconds) continue;
+            var ev = EventEvidence(best, data, variance, logN);
+            int weaker = ev[i].DeltaBic < ev[i + 1].DeltaBic ? i : i + 1;
+            var list = m.Events.ToList();
+            var kept = list[weaker == i ? i + 1 : i];
+            list.RemoveAt(weaker);
+            if (kept.Element == RunModelElement.Boundary && weaker == i + 1)
+                list[i] = kept with { Value = m.Events[i + 1].Value };
+            if (TryAccept(m.WithEvents(list), simpler: true, i)) i--;
+        }
+
+        // Split where the residual around an event is larger than the noise allows.
+        for (int round = 0; round < MaximumSplitRounds; round++)
+        {
+            var m = best.Model;
+            int worst = -1;
+            double worstExcess = 0;
+            for (int i = 0; i < m.Events.Count; i++)
+            {
+                if (m.Events[i].Element is RunModelElement.Tap or RunModelElement.Open or RunModelElement.Short) continue;
+                double excess = LocalExcess(best, data, variance, m.TimeOffsetSeconds + m.Events[i].RoundTripSeconds, effectiveRiseSeconds);
+                if (excess > worstExcess) { worstExcess = excess; worst = i; }
+            }
+            if (worst < 0 || worstExcess < 2 * logN + EvidenceMargin) break;
+            if (!TryAccept(m.WithEvents(Split(m, worst, effectiveRiseSeconds / 4)), simpler: false, worst, worst + 1)) break;
+        }
+
+        Prune();
+        if (trials > 0)
+        {
+            // Polish: every parameter free, warm started from the selected model.
+            best = ModelFitter.Fit(best.Model, data, variance, cancellation: cancellation);
+            bestBic = Bic(best);
+        }
+        var evidence = EventEvidence(best, data, variance, logN);
+        return new Result(best, variance, bestBic, evidence, trials);
+
+        // Ends: a boundary near ρ = ±1, or the last one when clearly up or down, may be an exact open or short;
+        // nothing on the main line lies beyond one.
+        void TryEnds()
+        {
+            for (int i = 0; i < best.Model.Events.Count; i++)
+            {
+                var m = best.Model;
+                if (m.Events[i].Element != RunModelElement.Boundary) continue;
+                double rho = LocalReflection(m, i);
+                bool last = i == m.Events.Count - 1;
+                if (Math.Abs(rho) < (last ? LastEndTrialReflection : EndTrialReflection)) continue;
+                var end = m.Events[i] with { Element = rho > 0 ? RunModelElement.Open : RunModelElement.Short, Value = double.NaN };
+                if (TryAccept(m.WithEvents(m.Events.Take(i).Append(end)), simpler: true, i)) return;
+            }
+        }
+
+        void Prune()
+        {
+            while (best.Model.Events.Count > 0)
+            {
+                var ev = EventEvidence(best, data, variance, logN);
+                int weakest = Enumerable.Range(0, ev.Count).MinBy(k => ev[k].DeltaBic);
+                if (ev[weakest].DeltaBic >= EvidenceMargin) break;
+                var list = best.Model.Events.ToList();
+                list.RemoveAt(weakest);
+                if (!TryAccept(best.Model.WithEvents(list), simpler: true, weakest - 1, weakest)) break;
+            }
+        }
+    }
+
+    /// <summary>ρ = (Z − Z_prev)/(Z + Z_prev) at a boundary (Pozar, <i>Microwave Engineering</i>, 4th ed., eq. 2.35).</summary>
+    internal static double LocalReflection(RunModel model, int index)
+    {
+        var e = model.Events[index];
+        double zPrev = RunModelBuilder.ImpedanceBefore(model, index);
+        return e.Element switch
+        {
+            RunModelElement.Boundary => (e.Value - zPrev) / (e.Value + zPrev),
+            RunModelElement.Open => 1,
+            RunModelElement.Short => -1,
+            // Shunt R across Z: load Z‖R, ρ = −Z/(2R + Z). Series R: load Z + R, ρ = R/(R + 2Z) (DESIGN.md §2).
+            RunModelElement.ShuntResistor => -zPrev / (2 * e.Value + zPrev),
+            RunModelElement.SeriesResistor => e.Value / (e.Value + 2 * zPrev),
+            // Two equal lines in parallel: Z/2, ρ = −1/3.
+            RunModelElement.Tap => -1.0 / 3,
+            _ => double.NaN,
+        };
+    }
+
+    /// <summary>For each event: the model without it (others fixed), and the BIC it earns.</summary>
+    internal static IReadOnlyList<Evidence> EventEvidence(ModelFit fit, FitData data, double variance, double logN)
+    {
+        var m = fit.Model;
+        var result = new Evidence[m.Events.Count];
+        Parallel.For(0, m.Events.Count, i =>
+        {
+            var without = m.WithEvents(m.Events.Where((_, k) => k != i));
+            var f = without.Simulate(data);
+            double rss = 0, peak = 0;
+            for (int s = 0; s < f.Length; s++)
+            {
+                double r = data.Samples[s] - f[s];
+                rss += r * r;
+                double d = fit.ModelSamples[s] - f[s];
+                if (Math.Abs(d) > Math.Abs(peak)) peak = d;
+            }
+            int k = m.Events[i].HasValue ? 2 : 1;
+            result[i] = new Evidence(data.IndependentFraction * (rss - fit.ResidualSumOfSquares) / variance - k * logN, peak);
+        });
+        return result;
+    }
+
+    /// <summary>
+    /// χ² of the residual in [t − 2t_r, t + 4t_r] beyond what noise explains (its mean plus three standard deviations
+    /// of a χ² with that many degrees of freedom): what a better local model could at most gain.
+    /// </summary>
+    internal static double LocalExcess(ModelFit fit, FitData data, double variance, double timeSeconds, double riseSeconds)
+    {
+        int from = Math.Max(0, (int)Math.Floor((timeSeconds - 2 * riseSeconds - data.StartTimeSeconds) / data.IntervalSeconds));
+        int to = Math.Min(data.Samples.Length - 1, (int)Math.Ceiling((timeSeconds + 4 * riseSeconds - data.StartTimeSeconds) / data.IntervalSeconds));
+        if (to <= from) return 0;
+        double chi2 = 0;
+        for (int s = from; s <= to; s++)
+        {
+            double r = data.Samples[s] - fit.ModelSamples[s];
+            chi2 += r * r;
+        }
+        double nu = data.IndependentFraction;
+        double dof = nu * (to - from + 1);
+        return nu * chi2 / variance - dof - 3 * Math.Sqrt(2 * dof);
+    }
+
+    /// <summary>Event <paramref name="index"/> as two of its kind ±<paramref name="halfGapSeconds"/> around it, sharing its size.</summary>
+    private static List<RunModelEvent> Split(RunModel m, int index, double halfGapSeconds)
+    {
+        var e = m.Events[index];
+        double t1 = Math.Max(e.RoundTripSeconds - halfGapSeconds, e.RoundTripSeconds / 2), t2 = e.RoundTripSeconds + halfGapSeconds;
+        var list = m.Events.ToList();
+        list.RemoveAt(index);
+        switch (e.Element)
+        {
+            case RunModelElement.Boundary:
+                double zPrev = RunModelBuilder.ImpedanceBefore(m, index);
+                list.Add(e with { RoundTripSeconds = t1, Value = Math.Sqrt(zPrev * e.Value) });
+                list.Add(e with { RoundTripSeconds = t2 });
+                break;
+            case RunModelElement.ShuntCapacitor or RunModelElement.SeriesInductor or RunModelElement.SeriesResistor:
+                list.Add(e with { RoundTripSeconds = t1, Value = e.Value / 2 });
+                list.Add(e with { RoundTripSeconds = t2, Value = e.Value / 2 });
+                break;
+            case RunModelElement.ShuntResistor:
+                list.Add(e with { RoundTripSeconds = t1, Value = e.Value * 2 });
+                list.Add(e with { RoundTripSeconds = t2, Value = e.Value * 2 });
+                break;
+        }
+        return list;
+    }
+}

@@ -1,0 +1,175 @@
+using CableFault.Networks;
+using CableFault.Simulation;
+
+namespace CableFault.Analysis;
+
+/// <summary>
+/// The parametric model of a run: an incident step (amplitude, time offset, rise) launched into a chain of events at
+/// round-trip times, each with a size. It turns into a <see cref="CableNetwork"/> and, through
+/// <see cref="ForwardModel"/>, into the expected trace, so multiple reflections, transmission through earlier events
+/// and loss are modelled rather than corrected for.
+/// </summary>
+/// <remarks>
+/// The fit works on dimensionless parameters (see <see cref="ToVector"/>): times in units of the reference rise,
+/// sizes as natural logarithms of value/scale so that they stay positive and a unit step is a similar change for all.
+/// A boundary that is the last event is followed by a matched line of its impedance: for a step stimulus that is the
+/// same as a resistive end of that many ohms.
+/// </remarks>
+internal sealed class RunModel
+{
+    /// <summary>Shortest segment the model builds, m: keeps events that LM pushes together or past each other valid.</summary>
+    private const double MinimumSegmentMeters = 1e-6;
+
+    /// <summary>Length of the stub that carries a matched end after the last event, m (any positive length will do).</summary>
+    private const double TailMeters = 1e-3;
+
+    /// <summary>Number of global parameters (amplitude, time offset, rise) at the start of the vector.</summary>
+    internal const int GlobalParameterCount = 3;
+
+    /// <summary>Forward-model evaluations so far in this process (for cost measurements).</summary>
+    internal static long SimulationCount;
+
+    internal RunModel(RunModelContext context, double amplitudeVolts, double timeOffsetSeconds, double riseSeconds,
+        IReadOnlyList<RunModelEvent> events)
+    {
+        Context = context;
+        AmplitudeVolts = amplitudeVolts;
+        TimeOffsetSeconds = timeOffsetSeconds;
+        RiseSeconds = riseSeconds;
+        Events = events.OrderBy(e => e.RoundTripSeconds).ToArray();
+    }
+
+    internal RunModelContext Context { get; }
+
+    /// <summary>Incident step amplitude V_s/2, V.</summary>
+    internal double AmplitudeVolts { get; }
+
+    /// <summary>Where the incident edge's 50 % point lies on the aligned time axis, s (ideally 0).</summary>
+    internal double TimeOffsetSeconds { get; }
+
+    /// <summary>10–90 % rise of the instrument's Gaussian edge, s.</summary>
+    internal double RiseSeconds { get; }
+
+    /// <summary>Events in order of round-trip time (relative to the incident edge).</summary>
+    internal IReadOnlyList<RunModelEvent> Events { get; }
+
+    /// <summary>Number of parameters in <see cref="ToVector"/>.</summary>
+    internal int ParameterCount => GlobalParameterCount + Events.Sum(e => e.HasValue ? 2 : 1);
+
+    internal RunModel WithEvents(IEnumerable<RunModelEvent> events) =>
+        new(Context, AmplitudeVolts, TimeOffsetSeconds, RiseSeconds, events.ToList());
+
+    /// <summary>Scale of an event's size, so ln(value/scale) is of order one.</summary>
+    internal static double ValueScale(RunModelElement element, RunModelContext c) => element switch
+    {
+        RunModelElement.Boundary or RunModelElement.ShuntResistor or RunModelElement.SeriesResistor => c.ImpedanceOhms,
+        RunModelElement.ShuntCapacitor => c.ReferenceRiseSeconds / c.ImpedanceOhms,
+        RunModelElement.SeriesInductor => c.ReferenceRiseSeconds * c.ImpedanceOhms,
+        RunModelElement.Tap => c.ReferenceRiseSeconds,
+        _ => 1,
+    };
+
+    /// <summary>
+    /// Dimensionless parameters: [A/A_ref, δt₀/t_ref, ln(t_r/t_ref)] then per event [t/t_ref, ln(value/scale)]
+    /// (open and short have no size).
+    /// </summary>
+    internal double[] ToVector()
+    {
+        var c = Context;
+        var u = new List<double>
+        {
+            AmplitudeVolts / c.ReferenceAmplitudeVolts,
+            TimeOffsetSeconds / c.ReferenceRiseSeconds,
+            Math.Log(RiseSeconds / c.ReferenceRiseSeconds),
+        };
+        foreach (var e in Events)
+        {
+            u.Add(e.RoundTripSeconds / c.ReferenceRiseSeconds);
+            if (e.HasValue) u.Add(Math.Log(e.Value / ValueScale(e.Element, c)));
+        }
+        return u.ToArray();
+    }
+
+    /// <summary>The model with the same event kinds and the sizes in <paramref name="u"/>.</summary>
+    internal RunModel FromVector(IReadOnlyList<double> u)
+    {
+        var c = Context;
+        var events = new List<RunModelEvent>(Events.Count);
+        int k = GlobalParameterCount;
+        foreach (var e in Events)
+        {
+            double t = u[k++] * c.ReferenceRiseSeconds;
+            double value = e.HasValue ? Math.Exp(Math.Clamp(u[k++], -40, 40)) * ValueScale(e.Element, c) : double.NaN;
+            events.Add(e with { RoundTripSeconds = t, Value = value });
+        }
+        return new RunModel(c, u[0] * c.ReferenceAmplitudeVolts, u[1] * c.ReferenceRiseSeconds,
+            Math.Exp(Math.Clamp(u[2], -5, 5)) * c.ReferenceRiseSeconds, events);
+    }
+
+    /// <summary>Index of event <paramref name="eventIndex"/>'s time parameter in <see cref="ToVector"/>.</summary>
+    internal int TimeParameterIndex(int eventIndex)
+    {
+        int k = GlobalParameterCount;
+        for (int i = 0; i < eventIndex; i++) k += Events[i].HasValue ? 2 : 1;
+        return k;
+    }
+
+    /// <summary>The run as a network (the times are relative to the incident edge).</summary>
+    internal CableNetwork ToNetwork() => new(Branch(0, 0, Context.ImpedanceOhms));
+
+    private NetworkBranch Branch(int start, double startTime, double impedance)
+    {
+        var c = Context;
+        double v = c.VelocityMetersPerSecond;
+        var elements = new List<NetworkElement>();
+        double previous = startTime;
+        for (int i = start; i < Events.Count; i++)
+        {
+            var e = Events[i];
+            double length = Math.Max((e.RoundTripSeconds - previous) * v / 2, MinimumSegmentMeters);
+            previous = Math.Max(previous, e.RoundTripSeconds);
+            elements.Add(new CableSegment(length, c.Medium(impedance)));
+            switch (e.Element)
+            {
+                case RunModelElement.Boundary: impedance = e.Value; break;
+                case RunModelElement.ShuntCapacitor: elements.Add(new ShuntCapacitor(e.Value)); break;
+                case RunModelElement.SeriesInductor: elements.Add(new SeriesInductor(e.Value)); break;
+                case RunModelElement.ShuntResistor: elements.Add(new ShuntResistor(e.Value)); break;
+                case RunModelElement.SeriesResistor: elements.Add(new SeriesResistor(e.Value)); break;
+                case RunModelElement.Open: elements.Add(RunEnd.Open); return new NetworkBranch(elements);
+                case RunModelElement.Short: elements.Add(RunEnd.Short); return new NetworkBranch(elements);
+                case RunModelElement.Tap:
+                    var main = Branch(i + 1, previous, impedance);
+                    var side = new NetworkBranch(
+                        new CableSegment(Math.Max(e.Value * v / 2, MinimumSegmentMeters), c.Medium(impedance)), RunEnd.Open);
+                    elements.Add(new Junction([main, side]));
+                    return new NetworkBranch(elements);
+            }
+        }
+        elements.Add(new CableSegment(TailMeters, c.Medium(impedance)));
+        elements.Add(RunEnd.Matched);
+        return new NetworkBranch(elements);
+    }
+
+    /// <summary>
+    /// The model's samples at the fit data's sample times. The data were low-passed by a Gaussian of σ_g, which for a
+    /// Gaussian edge is the same as an edge of σ = √(σ_r² + σ_g²): the filter is folded into the stimulus exactly.
+    /// </summary>
+    internal double[] Simulate(FitData data)
+    {
+        Interlocked.Increment(ref SimulationCount);
+        double sigmaRise = RiseSeconds / 2.5631031310892007;
+        double sigma = Math.Sqrt(sigmaRise * sigmaRise + data.FilterSigmaSeconds * data.FilterSigmaSeconds);
+        var settings = new InstrumentSettings
+        {
+            SourceImpedanceOhms = Context.SourceImpedanceOhms,
+            IncidentAmplitudeVolts = AmplitudeVolts == 0 ? 1e-30 : AmplitudeVolts,
+            RiseTimeSeconds = sigma * 2.5631031310892007,
+            EdgeShape = EdgeShape.Gaussian,
+            SampleIntervalSeconds = data.IntervalSeconds,
+            SampleCount = data.Samples.Length,
+            PreTriggerSeconds = Math.Max(0, TimeOffsetSeconds - data.StartTimeSeconds),
+        };
+        return ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings);
+    }
+}
