@@ -1,1 +1,3 @@
-return 0;
+using CableFault.Cli;
+
+return CliApp.Run(args, Console.Out, Console.Error);
