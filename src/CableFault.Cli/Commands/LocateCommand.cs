@@ -18,6 +18,7 @@ public static class LocateCommand
         var format = new Option<string>("--format") { Description = "text (a table) or json (DESIGN.md §4 contract).", DefaultValueFactory = _ => "text" }
             .AcceptOnlyFromAmong("text", "json");
         var offset = new Option<double?>("--time-zero-offset-ns") { Description = "Move the reference plane by this much round-trip time after the incident edge, ns (e.g. to skip a launch lead)." };
+        var window = TraceFiles.WindowOption();
         var png = CommonOptions.Png("the trace and impedance profile with the events marked");
         var svg = CommonOptions.Svg("the trace and impedance profile with the events marked");
 
@@ -25,13 +26,13 @@ public static class LocateCommand
             "Find and classify every event on the run: distance from the connector with a ± figure, kind, size and confidence.\n\n" +
             "Example:\n  cablefault locate traces/quillon-bay/mast-feeder-damaged.csv --cable RG-213 --png damaged.png")
         {
-            trace, units, format, offset, png, svg,
+            trace, units, format, offset, window, png, svg,
         };
         cable.AddTo(command);
         command.SetAction(parsed =>
         {
             var file = parsed.GetValue(trace)!;
-            var loaded = TraceFiles.Load(file);
+            var loaded = TraceFiles.Load(file, TraceFiles.TransformFor(parsed.GetValue(window)));
             var settings = cable.Resolve(parsed, loaded.Trace);
             bool json = parsed.GetValue(format) == "json";
             foreach (string warning in loaded.Warnings.Concat(settings.Warnings)) context.Warn(warning);
