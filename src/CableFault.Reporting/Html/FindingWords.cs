@@ -15,21 +15,12 @@ public static class FindingWords
     /// <summary>Standard deviations of the located distance allowed between an end-like event and the recorded length.</summary>
     public const double ExpectedEndSigmas = 3;
 
-    /// <summary>Name for people: "Open", "Impedance drop", ...</summary>
-    public static string Name(EventKind kind) => kind switch
+    /// <summary>Name for people, capitalised: "Open", "Impedance drop", ... (the words of the locate output).</summary>
+    public static string Name(EventKind kind)
     {
-        EventKind.Open => "Open",
-        EventKind.Short => "Short",
-        EventKind.ImpedanceRise => "Impedance rise",
-        EventKind.ImpedanceDrop => "Impedance drop",
-        EventKind.Capacitive => "Capacitive spot",
-        EventKind.Inductive => "Inductive spot",
-        EventKind.PartialShort => "Partial short (leakage)",
-        EventKind.SeriesResistance => "Series resistance",
-        EventKind.Tap => "Tap or branch",
-        EventKind.Termination => "Termination",
-        _ => "Unidentified change",
-    };
+        string words = Locate.EventWording.KindWords(kind);
+        return char.ToUpperInvariant(words[0]) + words[1..];
+    }
 
     /// <summary>What such an event usually is on an installed run; hedged, since the trace alone cannot tell.</summary>
     public static string LikelyCause(EventKind kind) => kind switch

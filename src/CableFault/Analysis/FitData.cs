@@ -68,9 +68,10 @@ internal sealed class FitData
             for (int j = 0; j < count; j++) y[j] = samples[first + j * stride];
             return new FitData(y, aligned.TimeAt(first), dt, 0, noiseRmsVolts, 1);
         }
-        // Gaussian kernel truncated at ±4σ (weight beyond is 6e-5), evaluated only at the kept samples.
+        // Gaussian kernel truncated at ±6σ (weight beyond is 2e-9, so the filter is the Gaussian the model assumes),
+        // evaluated only at the kept samples.
         double sigmaSamples = sigmaFilter / dt;
-        int half = (int)Math.Ceiling(4 * sigmaSamples);
+        int half = (int)Math.Ceiling(6 * sigmaSamples);
         var kernel = new double[2 * half + 1];
         double sum = 0;
         for (int m = -half; m <= half; m++) sum += kernel[m + half] = Math.Exp(-0.5 * m * m / (sigmaSamples * sigmaSamples));

@@ -27,12 +27,9 @@ internal static class ModelSelection
     /// trace (common practice for a sampler's linearity, from memory).</summary>
     internal const double ModellingFloorRelative = 2e-4;
 
-    /// <summary>Boundaries beyond |ρ| of this are tried as an exact open or short.</summary>
-    private const double EndTrialReflection = 0.8;
-
-    /// <summary>The last boundary is tried as an open or short from this |ρ|: what lies before an end can make it look
-    /// smaller until the rest of the model is right.</summary>
-    private const double LastEndTrialReflection = 0.3;
+    /// <summary>Boundaries beyond this |ρ| are tried as an exact open or short: what lies before an end can make it look
+    /// much smaller than 1 until the rest of the model is right.</summary>
+    private const double EndTrialReflection = 0.3;
 
     /// <summary>Most split rounds (each may split one event).</summary>
     private const int MaximumSplitRounds = 4;
@@ -91,6 +88,21 @@ internal static class ModelSelection
         TryEnds();
         Prune();
 
+        // Fits several candidates and accepts the best if it beats the current model.
+        bool TryBest(IReadOnlyList<RunModel> candidates, bool simpler, params int[] focus)
+        {
+            var saved = (best, bestBic);
+            ModelFit? winner = null;
+            double winnerBic = double.PositiveInfinity;
+            foreach (var c in candidates)
+            {
+                (best, bestBic) = saved;
+                if (TryAccept(c, simpler, focus) && bestBic < winnerBic) { winner = best; winnerBic = bestBic; }
+            }
+            (best, bestBic) = winner is null ? saved : (winner, winnerBic);
+            return winner is not null;
+        }
+
         // Alternative kinds, where what follows can tell them apart.
         for (int i = 0; i < best.Model.Events.Count; i++)
         {
@@ -102,7 +114,7 @@ internal static class ModelSelection
             if (rho < 0)
             {
                 var list = m.Events.ToList();
-                list[i] = e with { Element = RunModelElement.ShuntResistor, Value = zPrev * e.Value / Math.Max(zPrev - e.Value, 1e-9) };
+                list[i] = Resistive(m, i);
                 if (TryAccept(m.WithEvents(list), simpler: true, i)) continue;
                 if (rho > -0.6 && rho < -0.1)
                 {
@@ -120,7 +132,7 @@ internal static class ModelSelection
             else
             {
                 var list = m.Events.ToList();
-                list[i] = e with { Element = RunModelElement.SeriesResistor, Value = Math.Max(e.Value - zPrev, 1e-6) };
+                list[i] = Resistive(m, i);
                 TryAccept(m.WithEvents(list), simpler: true, i);
             }
         }
@@ -132,7 +144,7 @@ internal static class ModelSelection
         {
             var m = best.Model;
             if (m.Events[i + 1].RoundTripSeconds - m.Events[i].RoundTripSeconds > effectiveRiseSeconds) continue;
-            var ev = EventEvidence(best, data, variance, logN);
+            var ev = EventEvidence(best, data, variance, logN, effectiveRiseSeconds);
             int weaker = ev[i].DeltaBic < ev[i + 1].DeltaBic ? i : i + 1;
             var list = m.Events.ToList();
             var kept = list[weaker == i ? i + 1 : i];
@@ -165,11 +177,13 @@ internal static class ModelSelection
             best = ModelFitter.Fit(best.Model, data, variance, cancellation: cancellation);
             bestBic = Bic(best);
         }
-        var evidence = EventEvidence(best, data, variance, logN);
+        var evidence = EventEvidence(best, data, variance, logN, effectiveRiseSeconds);
         return new Result(best, variance, bestBic, evidence, trials);
 
-        // Ends: a boundary near ρ = ±1, or the last one when clearly up or down, may be an exact open or short;
-        // nothing on the main line lies beyond one.
+        // Ends: a boundary clearly up or down may be an exact open or short, with what the detector saw beyond it being
+        // echoes; nothing on the main line lies beyond an end. What an end looks like depends on how the earlier events
+        // pass the wave back (a shunt resistor and an impedance drop reflect alike but transmit differently), so each
+        // end is tried as is and with each earlier boundary as its resistive alternative.
         void TryEnds()
         {
             for (int i = 0; i < best.Model.Events.Count; i++)
@@ -177,10 +191,19 @@ internal static class ModelSelection
                 var m = best.Model;
                 if (m.Events[i].Element != RunModelElement.Boundary) continue;
                 double rho = LocalReflection(m, i);
-                bool last = i == m.Events.Count - 1;
-                if (Math.Abs(rho) < (last ? LastEndTrialReflection : EndTrialReflection)) continue;
+                if (Math.Abs(rho) < EndTrialReflection) continue;
                 var end = m.Events[i] with { Element = rho > 0 ? RunModelElement.Open : RunModelElement.Short, Value = double.NaN };
-                if (TryAccept(m.WithEvents(m.Events.Take(i).Append(end)), simpler: true, i)) return;
+                var truncated = m.Events.Take(i).Append(end).ToList();
+                var variants = new List<List<RunModelEvent>> { truncated };
+                for (int j = 0; j < i; j++)
+                {
+                    if (m.Events[j].Element != RunModelElement.Boundary) continue;
+                    var alt = Resistive(m, j);
+                    var list = truncated.ToList();
+                    list[j] = alt;
+                    variants.Add(list);
+                }
+                if (TryBest(variants.Select(v => m.WithEvents(v)).ToList(), simpler: true, 0)) return;
             }
         }
 
@@ -188,7 +211,7 @@ internal static class ModelSelection
         {
             while (best.Model.Events.Count > 0)
             {
-                var ev = EventEvidence(best, data, variance, logN);
+                var ev = EventEvidence(best, data, variance, logN, effectiveRiseSeconds);
                 int weakest = Enumerable.Range(0, ev.Count).MinBy(k => ev[k].DeltaBic);
                 if (ev[weakest].DeltaBic >= EvidenceMargin) break;
                 var list = best.Model.Events.ToList();
@@ -218,7 +241,7 @@ internal static class ModelSelection
     }
 
     /// <summary>For each event: the model without it (others fixed), and the BIC it earns.</summary>
-    internal static IReadOnlyList<Evidence> EventEvidence(ModelFit fit, FitData data, double variance, double logN)
+    internal static IReadOnlyList<Evidence> EventEvidence(ModelFit fit, FitData data, double variance, double logN, double riseSeconds)
     {
         var m = fit.Model;
         var result = new Evidence[m.Events.Count];
@@ -226,11 +249,17 @@ internal static class ModelSelection
         {
             var without = m.WithEvents(m.Events.Where((_, k) => k != i));
             var f = without.Simulate(data);
+            // The signature's peak is looked for near the event only: removing an event also changes every later echo.
+            double at = m.TimeOffsetSeconds + m.Events[i].RoundTripSeconds;
+            double until = i + 1 < m.Events.Count ? m.TimeOffsetSeconds + m.Events[i + 1].RoundTripSeconds - riseSeconds : double.PositiveInfinity;
+            until = Math.Min(until, at + 10 * riseSeconds);
             double rss = 0, peak = 0;
             for (int s = 0; s < f.Length; s++)
             {
                 double r = data.Samples[s] - f[s];
                 rss += r * r;
+                double t = data.TimeAt(s);
+                if (t < at - 3 * riseSeconds || t > Math.Max(until, at + riseSeconds)) continue;
                 double d = fit.ModelSamples[s] - f[s];
                 if (Math.Abs(d) > Math.Abs(peak)) peak = d;
             }
@@ -258,6 +287,17 @@ internal static class ModelSelection
         double nu = data.IndependentFraction;
         double dof = nu * (to - from + 1);
         return nu * chi2 / variance - dof - 3 * Math.Sqrt(2 * dof);
+    }
+
+    /// <summary>A boundary as the resistor that reflects alike: a drop to Z as shunt R = Z_prev·Z/(Z_prev − Z), a rise to
+    /// Z as series R = Z − Z_prev (the line then continues at Z_prev).</summary>
+    private static RunModelEvent Resistive(RunModel m, int index)
+    {
+        var e = m.Events[index];
+        double zPrev = RunModelBuilder.ImpedanceBefore(m, index);
+        return e.Value < zPrev
+            ? e with { Element = RunModelElement.ShuntResistor, Value = zPrev * e.Value / Math.Max(zPrev - e.Value, 1e-9) }
+            : e with { Element = RunModelElement.SeriesResistor, Value = Math.Max(e.Value - zPrev, 1e-6) };
     }
 
     /// <summary>Event <paramref name="index"/> as two of its kind ±<paramref name="halfGapSeconds"/> around it, sharing its size.</summary>
