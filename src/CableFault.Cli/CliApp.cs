@@ -26,6 +26,7 @@ public static class CliApp
         root.Options.Add(CommonOptions.Debug);
         root.Subcommands.Add(SimulateCommand.Create(context));
         root.Subcommands.Add(CablesCommand.Create(context));
+        root.Subcommands.Add(CompareCommand.Create(context));
 
         ParseResult parsed = root.Parse(args);
         if (parsed.Errors.Count > 0)
