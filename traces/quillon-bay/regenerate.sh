@@ -13,6 +13,8 @@ sim() { # network, output, source ohms, seed, extra...
 sim mast-feeder.network.json          mast-feeder.csv          50  11 --meta "date=2025-03-14"
 sim mast-feeder-damaged.network.json  mast-feeder-damaged.csv  50  12
 sim mast-feeder-repaired.network.json mast-feeder-repaired.csv 50  13 --meta "date=2026-11-30"
+sim mast-feeder.network.json          .vna-scratch.csv         50  14 --s1p "$here/mast-feeder-vna.s1p" --f-max-mhz 2000 --points 2000
+rm -f "$here/.vna-scratch.csv"
 sim camera-drop.network.json          camera-drop.csv          75  21
 sim sensor-pair.network.json          sensor-pair.csv          100 31
 "${cli[@]}" simulate "$here/mast-feeder-damaged.network.json" --rise-time-ns 0.5 --noise-mv 1 --seed 12 \

@@ -32,6 +32,9 @@ public static class SimulateCommand
         var svg = CommonOptions.Svg("a plot of the trace against distance");
         var units = CommonOptions.Units();
         var cables = CommonOptions.CableFile();
+        var s1p = new Option<FileInfo?>("--s1p") { Description = "Also write the run's S11 as a Touchstone one-port file (what a vector network analyser would measure)." };
+        var fMax = new Option<double>("--f-max-mhz") { Description = "Top frequency of the --s1p sweep, MHz (harmonic grid from Δf to this).", DefaultValueFactory = _ => 3000 };
+        var points = new Option<int>("--points") { Description = "Number of frequency points of the --s1p sweep.", DefaultValueFactory = _ => 1601 };
         var meta = new Option<string[]>("--meta")
         {
             Description = "Extra metadata written into the trace, as KEY=VALUE (repeatable), e.g. --meta site=\"Depot 4\".",
@@ -42,7 +45,7 @@ public static class SimulateCommand
             "Compute the step-response trace a reflectometer would record on a described cable run.\n\n" +
             "Example:\n  cablefault simulate traces/harbour-view/mast-feeder.network.json -o mast.csv --png mast.png")
         {
-            network, output, rise, interval, duration, samples, pre, source, amplitude, noise, seed, edge, png, svg, units, cables, meta,
+            network, output, rise, interval, duration, samples, pre, source, amplitude, noise, seed, edge, png, svg, units, cables, meta, s1p, fMax, points,
         };
         command.SetAction(parsed =>
         {
@@ -91,6 +94,21 @@ public static class SimulateCommand
             else
             {
                 TraceCsvWriter.Write(trace, context.Output);
+            }
+
+            if (parsed.GetValue(s1p) is FileInfo touchstone)
+            {
+                int count1 = parsed.GetValue(points);
+                double top = parsed.GetValue(fMax) * 1e6;
+                if (count1 < 2 || count1 > 1_000_000 || !(top > 0)) throw new InputException("--points must be 2 … 1 000 000 and --f-max-mhz positive");
+                var frequencies = Enumerable.Range(1, count1).Select(k => top * k / count1).ToArray();
+                double reference = settings.SourceImpedanceOhms;
+                var gamma = ForwardModel.ReflectionCoefficients(run, frequencies, reference);
+                var data = new FrequencyDomain.ReflectionData(frequencies, gamma, reference,
+                    [$"S11 of '{run.Name}' computed by cablefault simulate (lossless and lossy segments, lumped parts)"]);
+                AtomicFile.WriteText(touchstone.FullName, writer => FrequencyDomain.TouchstoneWriter.Write(data, writer));
+                context.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                    $"wrote {touchstone.Name}: {count1} points, {top / count1 / 1e6:G4} to {top / 1e6:G5} MHz, reference {reference:G4} Ω"));
             }
 
             var unit = DistanceUnit.Parse(parsed.GetValue(units));

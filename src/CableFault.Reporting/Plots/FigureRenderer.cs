@@ -20,8 +20,12 @@ public static class FigureRenderer
         canvas.Clear(new SKColor(FigurePalette.Background.ARGB));
         for (int i = 0; i < plots.Count; i++)
         {
-            plots[i].Render(canvas, new PixelRect(0, width, (i + 1) * panel, i * panel));
+            // Each panel renders on its own surface (ScottPlot clears the whole canvas it is given), then is stacked.
+            using var panelSurface = SKSurface.Create(new SKImageInfo(width, panel));
+            plots[i].Render(panelSurface.Canvas, width, panel);
             plots[i].Dispose();
+            using var panelImage = panelSurface.Snapshot();
+            canvas.DrawImage(panelImage, 0, i * panel);
         }
         using var image = surface.Snapshot();
         using var data = image.Encode(SKEncodedImageFormat.Png, 100);
@@ -84,7 +88,14 @@ public static class FigureRenderer
 
             plot.Axes.SetLimitsX(unit.FromMeters(xMin), unit.FromMeters(xMax));
             if (panel.YRange is { } yRange) plot.Axes.SetLimitsY(yRange.Low, yRange.High);
-            else plot.Axes.AutoScaleY();
+            else
+            {
+                plot.Axes.AutoScaleY();
+                // Head room above the data for the marker labels.
+                var limits = plot.Axes.GetLimits();
+                if (panel.Markers.Count > 0) plot.Axes.SetLimitsY(limits.Bottom, limits.Top + 0.35 * (limits.Top - limits.Bottom));
+            }
+            if (p == 0 || panel.Markers.Count > 0) AddMarkerLabels(plot, p == 0 ? panel.Markers : [], unit);
             if (p == 0 && figure.VelocityFactor is double vf) AddTimeAxis(plot, unit, xMin, xMax, vf);
             if (panel.Series.Count > 1 || panel.ShadedRegion is not null || panel.Band is not null)
                 plot.ShowLegend(Alignment.LowerRight);
@@ -126,12 +137,24 @@ public static class FigureRenderer
         var color = marker.Emphasised ? FigurePalette.Finding : FigurePalette.QuietFinding;
         var line = plot.Add.VerticalLine(unit.FromMeters(marker.DistanceMeters), marker.Emphasised ? 2f : 1.5f, color,
             marker.Emphasised ? LinePattern.Solid : LinePattern.Dotted);
-        line.Text = marker.Label;
-        line.LabelOppositeAxis = true;
-        line.TextRotation = -90;
-        line.TextSize = 12;
-        line.TextBackgroundColor = color;
-        line.TextColor = Colors.White;
+    }
+
+    /// <summary>Labels hang from the top of the data area, rotated, so close markers stay legible.</summary>
+    private static void AddMarkerLabels(Plot plot, IReadOnlyList<FigureMarker> markers, DistanceUnit unit)
+    {
+        var limits = plot.Axes.GetLimits();
+        foreach (var marker in markers)
+        {
+            var text = plot.Add.Text(marker.Label, unit.FromMeters(marker.DistanceMeters), limits.Top);
+            text.LabelStyle.Rotation = 90;
+            text.LabelStyle.FontSize = 11;
+            text.LabelStyle.Bold = marker.Emphasised;
+            text.LabelStyle.ForeColor = marker.Emphasised ? FigurePalette.Finding : FigurePalette.QuietFinding;
+            text.LabelStyle.BackgroundColor = Colors.White.WithAlpha(0.85);
+            text.LabelStyle.Alignment = Alignment.LowerLeft;
+            text.OffsetX = 3;
+            text.OffsetY = 4;
+        }
     }
 
     /// <summary>Top axis: round-trip time t = 2d/v in ns, at "nice" tick values.</summary>

@@ -10,7 +10,7 @@ internal sealed class FitData
 {
     /// <summary>Most rise times a window may span before it is smoothed: bounds the forward model's frequency bins
     /// (about 5 per rise time spanned) and so the cost of one model evaluation.</summary>
-    internal const double MaximumRiseTimesPerWindow = 320;
+    internal const double MaximumRiseTimesPerWindow = 200;
 
     /// <summary>Gaussian σ of a 10–90 % rise, in units of the rise: 1/(2√2·erf⁻¹(0.8)).</summary>
     private const double SigmaPerRise = 1 / 2.5631031310892007;
@@ -68,9 +68,10 @@ internal sealed class FitData
             for (int j = 0; j < count; j++) y[j] = samples[first + j * stride];
             return new FitData(y, aligned.TimeAt(first), dt, 0, noiseRmsVolts, 1);
         }
-        // Gaussian kernel truncated at ±4σ (weight beyond is 6e-5), evaluated only at the kept samples.
+        // Gaussian kernel truncated at ±6σ (weight beyond is 2e-9, so the filter is the Gaussian the model assumes),
+        // evaluated only at the kept samples.
         double sigmaSamples = sigmaFilter / dt;
-        int half = (int)Math.Ceiling(4 * sigmaSamples);
+        int half = (int)Math.Ceiling(6 * sigmaSamples);
         var kernel = new double[2 * half + 1];
         double sum = 0;
         for (int m = -half; m <= half; m++) sum += kernel[m + half] = Math.Exp(-0.5 * m * m / (sigmaSamples * sigmaSamples));

@@ -92,8 +92,8 @@ internal static class ModelFitter
             (q, _) => JacobianQ(q),
             x, y, weights);
         // The objective is χ²/2 in noise units: stop when its gradient is below 10⁻³ per noise-unit of parameter (what is
-        // left to gain is far below one unit of χ²), or when a step is a 10⁻⁹ fraction of the squared distance moved.
-        var minimizer = new LevenbergMarquardtMinimizer(initialMu: 1e-3, gradientTolerance: 1e-3, stepTolerance: 1e-9,
+        // left to gain is far below one unit of χ²), or when LM can no longer find a step that lowers χ² (its damping then shrinks the step to nothing).
+        var minimizer = new LevenbergMarquardtMinimizer(initialMu: 1e-3, gradientTolerance: 1e-3, stepTolerance: 1e-15,
             functionTolerance: 0, maximumIterations: maximumIterations);
         NonlinearMinimizationResult? result = null;
         try

@@ -27,18 +27,21 @@ internal static class ModelSelection
     /// trace (common practice for a sampler's linearity, from memory).</summary>
     internal const double ModellingFloorRelative = 2e-4;
 
-    /// <summary>Boundaries beyond |ρ| of this are tried as an exact open or short.</summary>
-    private const double EndTrialReflection = 0.8;
-
-    /// <summary>The last boundary is tried as an open or short from this |ρ|: what lies before an end can make it look
-    /// smaller until the rest of the model is right.</summary>
-    private const double LastEndTrialReflection = 0.3;
+    /// <summary>Boundaries beyond this |ρ| are tried as an exact open or short: what lies before an end can make it look
+    /// much smaller than 1 until the rest of the model is right.</summary>
+    private const double EndTrialReflection = 0.3;
 
     /// <summary>Most split rounds (each may split one event).</summary>
     private const int MaximumSplitRounds = 4;
 
     /// <summary>Iteration limit of a trial fit (warm started from a fitted model).</summary>
     private const int TrialIterations = 25;
+
+    /// <summary>Iterations after which a trial that is still far from the current criterion is given up.</summary>
+    private const int TrialFirstIterations = 8;
+
+    /// <summary>BIC units within which a trial after its first iterations counts as promising.</summary>
+    private const double PromisingMargin = 100;
 
     /// <summary>The selected model, the variance used, its criterion and each event's evidence.</summary>
     internal sealed record Result(ModelFit Fit, double VarianceVolts2, double Bic, IReadOnlyList<Evidence> Events, int Trials);
@@ -48,9 +51,6 @@ internal static class ModelSelection
     /// <param name="PeakSignatureVolts">Largest |model with − model without| over the window, V (signed).</param>
     internal sealed record Evidence(double DeltaBic, double PeakSignatureVolts);
 
-    /// <summary>Diagnostic log of the trials (null in normal use).</summary>
-    internal static Action<string>? Log;
-
     internal static Result Select(RunModel initial, FitData data, double effectiveRiseSeconds, CancellationToken cancellation = default)
     {
         double variance = Math.Max(data.NoiseRmsVolts * data.NoiseRmsVolts,
@@ -59,16 +59,21 @@ internal static class ModelSelection
         double logN = Math.Log(Math.Max(2, nu * data.Samples.Length));
         double Bic(ModelFit f) => nu * f.ResidualSumOfSquares / variance + f.Model.ParameterCount * logN;
         int trials = 0;
+        string Key(RunModel m) => string.Join(",", m.Events.Select(e => $"{e.Element}@{Math.Round(e.RoundTripSeconds / effectiveRiseSeconds)}"));
+        var tried = new HashSet<string> { Key(initial) };
 
         var best = ModelFitter.Fit(initial, data, variance, cancellation: cancellation);
         double bestBic = Bic(best);
-        Log?.Invoke($"initial BIC {bestBic:0.#} ({best.Iterations} it)");
 
         // A trial frees the events it changed, the one before, and every event after: a change alters what reaches the
         // later events and the levels and echoes they set, while the earlier part of the run is already fitted and
         // barely moves. The incident edge (amplitude, offset, rise) is free too: a wrong model bends it.
         bool TryAccept(RunModel candidate, bool simpler, params int[] focus)
         {
+            // The same kinds at the same places (to within an effective rise) are one hypothesis: fitting it twice from
+            // nearby starts gains nothing.
+            string key = Key(candidate);
+            if (!tried.Add(key)) return false;
             trials++;
             var free = new bool[candidate.ParameterCount];
             for (int g = 0; g < RunModel.GlobalParameterCount; g++) free[g] = true;
@@ -79,17 +84,37 @@ internal static class ModelSelection
                 free[k] = true;
                 if (candidate.Events[i].HasValue) free[k + 1] = true;
             }
-            var fit = ModelFitter.Fit(candidate, data, variance, free, TrialIterations, cancellation);
+            var fit = ModelFitter.Fit(candidate, data, variance, free, TrialFirstIterations, cancellation);
             double bic = Bic(fit);
+            // A right hypothesis falls close to the current criterion within a few iterations; a wrong one stays far
+            // above it. Only the promising get the rest of the iterations.
+            if (!fit.Converged && bic < bestBic + Math.Max(PromisingMargin, 0.1 * Math.Abs(bestBic)))
+            {
+                fit = ModelFitter.Fit(fit.Model, data, variance, free, TrialIterations - TrialFirstIterations, cancellation);
+                bic = Bic(fit);
+            }
             bool accept = simpler ? bic < bestBic + EvidenceMargin : bic < bestBic - EvidenceMargin;
-            if (Log is not null) Log($"  start BIC {nu * ModelFitter.ResidualSumOfSquares(candidate, data) / variance + candidate.ParameterCount * logN:0.#}");
-            Log?.Invoke($"trial {string.Join(",", candidate.Events.Select(e => e.Element.ToString()[..2]))}: BIC {bic:0.#} vs {bestBic:0.#} ({fit.Iterations} it, {(fit.Converged ? "conv" : "not conv")}) {(accept ? "ACCEPT" : "reject")}");
             if (accept) { best = fit; bestBic = bic; }
             return accept;
         }
 
         TryEnds();
         Prune();
+
+        // Fits several candidates and accepts the best if it beats the current model.
+        bool TryBest(IReadOnlyList<RunModel> candidates, bool simpler, params int[] focus)
+        {
+            var saved = (best, bestBic);
+            ModelFit? winner = null;
+            double winnerBic = double.PositiveInfinity;
+            foreach (var c in candidates)
+            {
+                (best, bestBic) = saved;
+                if (TryAccept(c, simpler, focus) && bestBic < winnerBic) { winner = best; winnerBic = bestBic; }
+            }
+            (best, bestBic) = winner is null ? saved : (winner, winnerBic);
+            return winner is not null;
+        }
 
         // Alternative kinds, where what follows can tell them apart.
         for (int i = 0; i < best.Model.Events.Count; i++)
@@ -102,7 +127,7 @@ internal static class ModelSelection
             if (rho < 0)
             {
                 var list = m.Events.ToList();
-                list[i] = e with { Element = RunModelElement.ShuntResistor, Value = zPrev * e.Value / Math.Max(zPrev - e.Value, 1e-9) };
+                list[i] = Resistive(m, i);
                 if (TryAccept(m.WithEvents(list), simpler: true, i)) continue;
                 if (rho > -0.6 && rho < -0.1)
                 {
@@ -120,7 +145,7 @@ internal static class ModelSelection
             else
             {
                 var list = m.Events.ToList();
-                list[i] = e with { Element = RunModelElement.SeriesResistor, Value = Math.Max(e.Value - zPrev, 1e-6) };
+                list[i] = Resistive(m, i);
                 TryAccept(m.WithEvents(list), simpler: true, i);
             }
         }
@@ -132,7 +157,7 @@ internal static class ModelSelection
         {
             var m = best.Model;
             if (m.Events[i + 1].RoundTripSeconds - m.Events[i].RoundTripSeconds > effectiveRiseSeconds) continue;
-            var ev = EventEvidence(best, data, variance, logN);
+            var ev = EventEvidence(best, data, variance, logN, effectiveRiseSeconds);
             int weaker = ev[i].DeltaBic < ev[i + 1].DeltaBic ? i : i + 1;
             var list = m.Events.ToList();
             var kept = list[weaker == i ? i + 1 : i];
@@ -165,11 +190,13 @@ internal static class ModelSelection
             best = ModelFitter.Fit(best.Model, data, variance, cancellation: cancellation);
             bestBic = Bic(best);
         }
-        var evidence = EventEvidence(best, data, variance, logN);
+        var evidence = EventEvidence(best, data, variance, logN, effectiveRiseSeconds);
         return new Result(best, variance, bestBic, evidence, trials);
 
-        // Ends: a boundary near ρ = ±1, or the last one when clearly up or down, may be an exact open or short;
-        // nothing on the main line lies beyond one.
+        // Ends: a boundary clearly up or down may be an exact open or short, with what the detector saw beyond it being
+        // echoes; nothing on the main line lies beyond an end. What an end looks like depends on how the earlier events
+        // pass the wave back (a shunt resistor and an impedance drop reflect alike but transmit differently), so each
+        // end is tried as is and with each earlier boundary as its resistive alternative.
         void TryEnds()
         {
             for (int i = 0; i < best.Model.Events.Count; i++)
@@ -177,10 +204,19 @@ internal static class ModelSelection
                 var m = best.Model;
                 if (m.Events[i].Element != RunModelElement.Boundary) continue;
                 double rho = LocalReflection(m, i);
-                bool last = i == m.Events.Count - 1;
-                if (Math.Abs(rho) < (last ? LastEndTrialReflection : EndTrialReflection)) continue;
+                if (Math.Abs(rho) < EndTrialReflection) continue;
                 var end = m.Events[i] with { Element = rho > 0 ? RunModelElement.Open : RunModelElement.Short, Value = double.NaN };
-                if (TryAccept(m.WithEvents(m.Events.Take(i).Append(end)), simpler: true, i)) return;
+                var truncated = m.Events.Take(i).Append(end).ToList();
+                var variants = new List<List<RunModelEvent>> { truncated };
+                for (int j = 0; j < i; j++)
+                {
+                    if (m.Events[j].Element != RunModelElement.Boundary) continue;
+                    var alt = Resistive(m, j);
+                    var list = truncated.ToList();
+                    list[j] = alt;
+                    variants.Add(list);
+                }
+                if (TryBest(variants.Select(v => m.WithEvents(v)).ToList(), simpler: true, 0)) return;
             }
         }
 
@@ -188,7 +224,7 @@ internal static class ModelSelection
         {
             while (best.Model.Events.Count > 0)
             {
-                var ev = EventEvidence(best, data, variance, logN);
+                var ev = EventEvidence(best, data, variance, logN, effectiveRiseSeconds);
                 int weakest = Enumerable.Range(0, ev.Count).MinBy(k => ev[k].DeltaBic);
                 if (ev[weakest].DeltaBic >= EvidenceMargin) break;
                 var list = best.Model.Events.ToList();
@@ -218,7 +254,7 @@ internal static class ModelSelection
     }
 
     /// <summary>For each event: the model without it (others fixed), and the BIC it earns.</summary>
-    internal static IReadOnlyList<Evidence> EventEvidence(ModelFit fit, FitData data, double variance, double logN)
+    internal static IReadOnlyList<Evidence> EventEvidence(ModelFit fit, FitData data, double variance, double logN, double riseSeconds)
     {
         var m = fit.Model;
         var result = new Evidence[m.Events.Count];
@@ -226,11 +262,17 @@ internal static class ModelSelection
         {
             var without = m.WithEvents(m.Events.Where((_, k) => k != i));
             var f = without.Simulate(data);
+            // The signature's peak is looked for near the event only: removing an event also changes every later echo.
+            double at = m.TimeOffsetSeconds + m.Events[i].RoundTripSeconds;
+            double until = i + 1 < m.Events.Count ? m.TimeOffsetSeconds + m.Events[i + 1].RoundTripSeconds - riseSeconds : double.PositiveInfinity;
+            until = Math.Min(until, at + 10 * riseSeconds);
             double rss = 0, peak = 0;
             for (int s = 0; s < f.Length; s++)
             {
                 double r = data.Samples[s] - f[s];
                 rss += r * r;
+                double t = data.TimeAt(s);
+                if (t < at - 3 * riseSeconds || t > Math.Max(until, at + riseSeconds)) continue;
                 double d = fit.ModelSamples[s] - f[s];
                 if (Math.Abs(d) > Math.Abs(peak)) peak = d;
             }
@@ -258,6 +300,17 @@ internal static class ModelSelection
         double nu = data.IndependentFraction;
         double dof = nu * (to - from + 1);
         return nu * chi2 / variance - dof - 3 * Math.Sqrt(2 * dof);
+    }
+
+    /// <summary>A boundary as the resistor that reflects alike: a drop to Z as shunt R = Z_prev·Z/(Z_prev − Z), a rise to
+    /// Z as series R = Z − Z_prev (the line then continues at Z_prev).</summary>
+    private static RunModelEvent Resistive(RunModel m, int index)
+    {
+        var e = m.Events[index];
+        double zPrev = RunModelBuilder.ImpedanceBefore(m, index);
+        return e.Value < zPrev
+            ? e with { Element = RunModelElement.ShuntResistor, Value = zPrev * e.Value / Math.Max(zPrev - e.Value, 1e-9) }
+            : e with { Element = RunModelElement.SeriesResistor, Value = Math.Max(e.Value - zPrev, 1e-6) };
     }
 
     /// <summary>Event <paramref name="index"/> as two of its kind ±<paramref name="halfGapSeconds"/> around it, sharing its size.</summary>

@@ -23,16 +23,17 @@ internal sealed class RunModel
     /// <summary>Length of the stub that carries a matched end after the last event, m (any positive length will do).</summary>
     private const double TailMeters = 1e-3;
 
-    /// <summary>Number of global parameters (amplitude, time offset, rise) at the start of the vector.</summary>
-    internal const int GlobalParameterCount = 3;
+    /// <summary>Number of global parameters (amplitude, time offset, rise, level offset) at the start of the vector.</summary>
+    internal const int GlobalParameterCount = 4;
 
     /// <summary>Forward-model evaluations so far in this process (for cost measurements).</summary>
     internal static long SimulationCount;
 
     internal RunModel(RunModelContext context, double amplitudeVolts, double timeOffsetSeconds, double riseSeconds,
-        IReadOnlyList<RunModelEvent> events)
+        IReadOnlyList<RunModelEvent> events, double offsetVolts = 0)
     {
         Context = context;
+        OffsetVolts = offsetVolts;
         AmplitudeVolts = amplitudeVolts;
         TimeOffsetSeconds = timeOffsetSeconds;
         RiseSeconds = riseSeconds;
@@ -43,6 +44,10 @@ internal sealed class RunModel
 
     /// <summary>Incident step amplitude V_s/2, V.</summary>
     internal double AmplitudeVolts { get; }
+
+    /// <summary>Level of the trace before the edge, V: the baseline the conditioning removed is an estimate from a few
+    /// noisy samples, and a residual offset of a fraction of the noise would otherwise pass for a change of level.</summary>
+    internal double OffsetVolts { get; }
 
     /// <summary>Where the incident edge's 50 % point lies on the aligned time axis, s (ideally 0).</summary>
     internal double TimeOffsetSeconds { get; }
@@ -57,7 +62,7 @@ internal sealed class RunModel
     internal int ParameterCount => GlobalParameterCount + Events.Sum(e => e.HasValue ? 2 : 1);
 
     internal RunModel WithEvents(IEnumerable<RunModelEvent> events) =>
-        new(Context, AmplitudeVolts, TimeOffsetSeconds, RiseSeconds, events.ToList());
+        new(Context, AmplitudeVolts, TimeOffsetSeconds, RiseSeconds, events.ToList(), OffsetVolts);
 
     /// <summary>Scale of an event's size, so ln(value/scale) is of order one.</summary>
     internal static double ValueScale(RunModelElement element, RunModelContext c) => element switch
@@ -70,7 +75,7 @@ internal sealed class RunModel
     };
 
     /// <summary>
-    /// Dimensionless parameters: [A/A_ref, δt₀/t_ref, ln(t_r/t_ref)] then per event [t/t_ref, ln(value/scale)]
+    /// Dimensionless parameters: [A/A_ref, δt₀/t_ref, ln(t_r/t_ref), offset/A_ref] then per event [t/t_ref, ln(value/scale)]
     /// (open and short have no size).
     /// </summary>
     internal double[] ToVector()
@@ -81,6 +86,7 @@ internal sealed class RunModel
             AmplitudeVolts / c.ReferenceAmplitudeVolts,
             TimeOffsetSeconds / c.ReferenceRiseSeconds,
             Math.Log(RiseSeconds / c.ReferenceRiseSeconds),
+            OffsetVolts / c.ReferenceAmplitudeVolts,
         };
         foreach (var e in Events)
         {
@@ -103,7 +109,7 @@ internal sealed class RunModel
             events.Add(e with { RoundTripSeconds = t, Value = value });
         }
         return new RunModel(c, u[0] * c.ReferenceAmplitudeVolts, u[1] * c.ReferenceRiseSeconds,
-            Math.Exp(Math.Clamp(u[2], -5, 5)) * c.ReferenceRiseSeconds, events);
+            Math.Exp(Math.Clamp(u[2], -5, 5)) * c.ReferenceRiseSeconds, events, u[3] * c.ReferenceAmplitudeVolts);
     }
 
     /// <summary>Index of event <paramref name="eventIndex"/>'s time parameter in <see cref="ToVector"/>.</summary>
@@ -170,6 +176,9 @@ internal sealed class RunModel
             SampleCount = data.Samples.Length,
             PreTriggerSeconds = Math.Max(0, TimeOffsetSeconds - data.StartTimeSeconds),
         };
-        return ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings);
+        var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings);
+        if (OffsetVolts != 0)
+            for (int i = 0; i < samples.Length; i++) samples[i] += OffsetVolts;
+        return samples;
     }
 }

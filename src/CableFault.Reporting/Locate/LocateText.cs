@@ -1,0 +1,47 @@
+using System.Globalization;
+using System.Text;
+using CableFault.Analysis;
+
+namespace CableFault.Reporting.Locate;
+
+/// <summary>The readable table `cablefault locate` prints by default.</summary>
+public static class LocateText
+{
+    /// <summary>Renders the result for a terminal.</summary>
+    public static string Render(LocateResult result, string traceName, DistanceUnit unit)
+    {
+        var text = new StringBuilder();
+        var c = result.Characteristics;
+        var o = result.Options;
+        var inv = CultureInfo.InvariantCulture;
+        text.AppendLine($"{traceName}");
+        text.AppendLine(string.Create(inv,
+            $"  VF {o.VelocityFactor:F3} ({o.VelocityFactorSource}, ±{o.VelocityFactorRelativeSigma * 100:0.#} %)   Z0 {o.ImpedanceOhms:0.#} Ω   source {o.SourceImpedanceOhms:0.#} Ω"));
+        text.AppendLine(string.Create(inv,
+            $"  rise {c.RiseTimeSeconds * 1e9:0.###} ns   noise {c.NoiseRmsVolts * 1e3:0.###} mV RMS   step {c.IncidentAmplitudeVolts:0.###} V   blind zone {unit.Format(result.BlindZoneMeters)}"));
+        text.AppendLine();
+        if (result.Events.Count == 0)
+        {
+            text.AppendLine("  No events found: the run looks uniform and matched over the recorded length.");
+        }
+        else
+        {
+            text.AppendLine($"  {"#",2}  {"distance (" + unit.Symbol + ")",-22} {"kind",-19} {"ρ",7}  {"size",-16} {"confidence",10}");
+            int index = 1;
+            foreach (var e in result.Events)
+            {
+                string distance = string.Create(inv, $"{unit.FromMeters(e.DistanceMeters):F2} ± {unit.FromMeters(e.DistanceSigmaMeters):F2}");
+                text.AppendLine(string.Create(inv,
+                    $"  {index++,2}  {distance,-22} {EventWording.KindWords(e.Kind),-19} {e.Reflection,7:+0.000;-0.000}  {EventWording.SizeWords(e),-16} {e.Confidence,9:P0}"));
+            }
+        }
+        text.AppendLine();
+        var fit = result.Fit;
+        text.AppendLine(string.Create(inv,
+            $"  model fit: {(fit.Converged ? "converged" : "did not converge")} after {fit.Iterations} iterations, residual {fit.ResidualRmsVolts * 1e3:0.###} mV RMS, {fit.ParameterCount} parameters ({fit.Criterion}){(string.IsNullOrWhiteSpace(fit.Message) ? "" : "; " + fit.Message)}"));
+        text.AppendLine(string.Create(inv,
+            $"  ± figures are 1 σ and include the VF uncertainty (δd/d = δVF/VF = {o.VelocityFactorRelativeSigma * 100:0.#} %); calibrate the VF on a known length to shrink them."));
+        foreach (string warning in result.Warnings) text.AppendLine($"  warning: {warning}");
+        return text.ToString();
+    }
+}
