@@ -132,19 +132,23 @@ internal static class ModelSelection
             {
                 var list = m.Events.ToList();
                 list[i] = Resistive(m, i);
-                if (TryAccept(m.WithEvents(list), simpler: true, i)) continue;
+                var variants = new List<RunModel> { m.WithEvents(list) };
                 if (rho > -0.6 && rho < -0.1)
                 {
-                    // A tap: the drop and a later rise (the branch end's echo) become one junction with an open branch.
+                    // A tap: the drop and a later rise or open (the branch end's echo) become one junction with an open
+                    // branch. A shunt resistor of Z followed by an open reflects exactly like a tap whose other branch is
+                    // matched, with one parameter fewer: the criterion prefers the tap, the usual way such a trace arises.
                     foreach (int j in Enumerable.Range(i + 1, m.Events.Count - i - 1)
-                                 .Where(j => m.Events[j].Element == RunModelElement.Boundary && LocalReflection(m, j) > 0).Take(3))
+                                 .Where(j => m.Events[j].Element == RunModelElement.Open
+                                             || (m.Events[j].Element == RunModelElement.Boundary && LocalReflection(m, j) > 0)).Take(3))
                     {
                         var tapList = m.Events.ToList();
                         tapList[i] = e with { Element = RunModelElement.Tap, Value = m.Events[j].RoundTripSeconds - e.RoundTripSeconds };
                         tapList.RemoveAt(j);
-                        if (TryAccept(m.WithEvents(tapList), simpler: true, i, j - 1)) break;
+                        variants.Add(m.WithEvents(tapList));
                     }
                 }
+                if (TryBest(variants, simpler: true, i)) continue;
             }
             else
             {
@@ -188,6 +192,7 @@ internal static class ModelSelection
         }
 
         Prune();
+        TruncateAtTotalReflection();
         if (trials > 0)
         {
             // Polish: every parameter free, warm started from the selected model.
@@ -222,6 +227,36 @@ internal static class ModelSelection
                 }
                 if (TryBest(variants.Select(v => m.WithEvents(v)).ToList(), simpler: true, 0)) return;
             }
+        }
+
+        // Nothing on the main line lies beyond a total reflection: what the model put there is re-reflection and loss
+        // tail. A boundary to |ρ| ≥ the classifier's end threshold becomes an exact open or short and everything after
+        // it goes, whatever the criterion says (a wrong loss model can make later junk pay for itself).
+        void TruncateAtTotalReflection()
+        {
+            var m = best.Model;
+            int at = -1;
+            for (int i = 0; i < m.Events.Count && at < 0; i++)
+            {
+                var e = m.Events[i];
+                if (e.EndsRun || (e.Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, i)) >= EventClassifier.EndReflection))
+                    at = i;
+            }
+            double recordEnd = data.TimeAt(data.Samples.Length - 1) - m.TimeOffsetSeconds;
+            int beyondRecord = Enumerable.Range(0, m.Events.Count).Where(i => m.Events[i].RoundTripSeconds > recordEnd).DefaultIfEmpty(-1).First();
+            if (at < 0 && beyondRecord < 0) return;
+            var list = m.Events.ToList();
+            if (at >= 0)
+            {
+                var e = m.Events[at];
+                if (!e.EndsRun) list[at] = e with { Element = LocalReflection(m, at) > 0 ? RunModelElement.Open : RunModelElement.Short, Value = double.NaN };
+                list.RemoveRange(at + 1, list.Count - at - 1);
+            }
+            list.RemoveAll(e => e.RoundTripSeconds > recordEnd);
+            if (list.Count == m.Events.Count && list.Zip(m.Events).All(p => p.First == p.Second)) return;
+            best = ModelFitter.Fit(m.WithEvents(list), data, variance, cancellation: cancellation);
+            bestBic = Bic(best);
+            trials++;
         }
 
         void Prune()
