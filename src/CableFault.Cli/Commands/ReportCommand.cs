@@ -64,7 +64,7 @@ public static class ReportCommand
                 foreach (string warning in before.Warnings) context.Warn($"{before.Name}: {warning}");
                 // Both traces are read with the settings resolved for the current one, so the comparison cannot
                 // disagree with the rest of the report.
-                var compareOptions = new Comparison.CompareOptions
+                var compareOptions = new RepairCheckOptions
                 {
                     VelocityFactor = settings.VelocityFactor,
                     ImpedanceOhms = settings.ImpedanceOhms,

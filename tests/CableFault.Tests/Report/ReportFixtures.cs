@@ -44,7 +44,7 @@ internal static class ReportFixtures
     private static readonly Lazy<Trace> LazyBaseline = new(() => Simulate(wetSection: false, seed: 8));
 
     private static readonly Lazy<CompareResult> LazyComparison = new(() =>
-        RepairCheck.Compare(LazyBaseline.Value, Trace, new CompareOptions { VelocityFactor = VelocityFactor, ImpedanceOhms = 50 }));
+        RepairCheck.Compare(LazyBaseline.Value, Trace, new RepairCheckOptions { VelocityFactor = VelocityFactor, ImpedanceOhms = 50 }));
 
     /// <summary>The repair check of the wet run against its sound baseline.</summary>
     public static CompareResult Comparison => LazyComparison.Value;
