@@ -29,6 +29,7 @@ public static class CliApp
         root.Subcommands.Add(LocateCommand.Create(context));
         root.Subcommands.Add(CalibrateCommand.Create(context));
         root.Subcommands.Add(ConvertCommand.Create(context));
+        root.Subcommands.Add(ReportCommand.Create(context));
 
         ParseResult parsed = root.Parse(args);
         if (parsed.Errors.Count > 0)

@@ -10,7 +10,7 @@ internal sealed class FitData
 {
     /// <summary>Most rise times a window may span before it is smoothed: bounds the forward model's frequency bins
     /// (about 5 per rise time spanned) and so the cost of one model evaluation.</summary>
-    internal const double MaximumRiseTimesPerWindow = 320;
+    internal const double MaximumRiseTimesPerWindow = 200;
 
     /// <summary>Gaussian σ of a 10–90 % rise, in units of the rise: 1/(2√2·erf⁻¹(0.8)).</summary>
     private const double SigmaPerRise = 1 / 2.5631031310892007;

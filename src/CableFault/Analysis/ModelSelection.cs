@@ -37,6 +37,12 @@ internal static class ModelSelection
     /// <summary>Iteration limit of a trial fit (warm started from a fitted model).</summary>
     private const int TrialIterations = 25;
 
+    /// <summary>Iterations after which a trial that is still far from the current criterion is given up.</summary>
+    private const int TrialFirstIterations = 8;
+
+    /// <summary>BIC units within which a trial after its first iterations counts as promising.</summary>
+    private const double PromisingMargin = 100;
+
     /// <summary>The selected model, the variance used, its criterion and each event's evidence.</summary>
     internal sealed record Result(ModelFit Fit, double VarianceVolts2, double Bic, IReadOnlyList<Evidence> Events, int Trials);
 
@@ -44,9 +50,6 @@ internal static class ModelSelection
     /// <param name="DeltaBic">BIC without the event minus BIC with it; positive means the event is supported.</param>
     /// <param name="PeakSignatureVolts">Largest |model with − model without| over the window, V (signed).</param>
     internal sealed record Evidence(double DeltaBic, double PeakSignatureVolts);
-
-    /// <summary>Diagnostic log of the trials (null in normal use).</summary>
-    internal static Action<string>? Log;
 
     internal static Result Select(RunModel initial, FitData data, double effectiveRiseSeconds, CancellationToken cancellation = default)
     {
@@ -56,16 +59,21 @@ internal static class ModelSelection
         double logN = Math.Log(Math.Max(2, nu * data.Samples.Length));
         double Bic(ModelFit f) => nu * f.ResidualSumOfSquares / variance + f.Model.ParameterCount * logN;
         int trials = 0;
+        string Key(RunModel m) => string.Join(",", m.Events.Select(e => $"{e.Element}@{Math.Round(e.RoundTripSeconds / effectiveRiseSeconds)}"));
+        var tried = new HashSet<string> { Key(initial) };
 
         var best = ModelFitter.Fit(initial, data, variance, cancellation: cancellation);
         double bestBic = Bic(best);
-        Log?.Invoke($"initial BIC {bestBic:0.#} ({best.Iterations} it)");
 
         // A trial frees the events it changed, the one before, and every event after: a change alters what reaches the
         // later events and the levels and echoes they set, while the earlier part of the run is already fitted and
         // barely moves. The incident edge (amplitude, offset, rise) is free too: a wrong model bends it.
         bool TryAccept(RunModel candidate, bool simpler, params int[] focus)
         {
+            // The same kinds at the same places (to within an effective rise) are one hypothesis: fitting it twice from
+            // nearby starts gains nothing.
+            string key = Key(candidate);
+            if (!tried.Add(key)) return false;
             trials++;
             var free = new bool[candidate.ParameterCount];
             for (int g = 0; g < RunModel.GlobalParameterCount; g++) free[g] = true;
@@ -76,11 +84,16 @@ internal static class ModelSelection
                 free[k] = true;
                 if (candidate.Events[i].HasValue) free[k + 1] = true;
             }
-            var fit = ModelFitter.Fit(candidate, data, variance, free, TrialIterations, cancellation);
+            var fit = ModelFitter.Fit(candidate, data, variance, free, TrialFirstIterations, cancellation);
             double bic = Bic(fit);
+            // A right hypothesis falls close to the current criterion within a few iterations; a wrong one stays far
+            // above it. Only the promising get the rest of the iterations.
+            if (!fit.Converged && bic < bestBic + Math.Max(PromisingMargin, 0.1 * Math.Abs(bestBic)))
+            {
+                fit = ModelFitter.Fit(fit.Model, data, variance, free, TrialIterations - TrialFirstIterations, cancellation);
+                bic = Bic(fit);
+            }
             bool accept = simpler ? bic < bestBic + EvidenceMargin : bic < bestBic - EvidenceMargin;
-            if (Log is not null) Log($"  start BIC {nu * ModelFitter.ResidualSumOfSquares(candidate, data) / variance + candidate.ParameterCount * logN:0.#}");
-            Log?.Invoke($"trial {string.Join(",", candidate.Events.Select(e => e.Element.ToString()[..2]))}: BIC {bic:0.#} vs {bestBic:0.#} ({fit.Iterations} it, {(fit.Converged ? "conv" : "not conv")}) {(accept ? "ACCEPT" : "reject")}");
             if (accept) { best = fit; bestBic = bic; }
             return accept;
         }

@@ -9,31 +9,20 @@ public sealed record CableNetwork(NetworkBranch Run, string Name = "")
     public IReadOnlyList<string> Problems() => NetworkValidator.Problems(this);
 
     /// <summary>The longest one-way delay from the port to any end, s (used to size default records).</summary>
-    public double LongestDelaySeconds() => LongestDelay(Run);
+    public double LongestDelaySeconds() => Longest(Run, segment => segment.DelaySeconds);
 
     /// <summary>The longest physical path from the port to any end, m.</summary>
-    public double LongestPathMeters() => LongestPath(Run);
+    public double LongestPathMeters() => Longest(Run, segment => segment.LengthMeters);
 
-    private static double LongestDelay(NetworkBranch branch)
+    /// <summary>The largest sum of a per-segment quantity along any path from the port to an end.</summary>
+    private static double Longest(NetworkBranch branch, Func<CableSegment, double> quantity)
     {
         double total = 0;
         foreach (var element in branch.Elements)
         {
-            if (element is CableSegment segment) total += segment.DelaySeconds;
+            if (element is CableSegment segment) total += quantity(segment);
             if (element is Junction junction && junction.Branches.Count > 0)
-                total += junction.Branches.Max(LongestDelay);
-        }
-        return total;
-    }
-
-    private static double LongestPath(NetworkBranch branch)
-    {
-        double total = 0;
-        foreach (var element in branch.Elements)
-        {
-            if (element is CableSegment segment) total += segment.LengthMeters;
-            if (element is Junction junction && junction.Branches.Count > 0)
-                total += junction.Branches.Max(LongestPath);
+                total += junction.Branches.Max(b => Longest(b, quantity));
         }
         return total;
     }

@@ -41,7 +41,8 @@ public class CableLossModelTests
     public void NeperDecibelConversionMatchesDefinition()
     {
         // 1 Np = 20·log10(e) dB (IEC 60027-3 / ISO 80000-3 definition of the neper and decibel).
-        Assert.Equal(20 * Math.Log10(Math.E), 1 / CableLossModel.NepersPerDecibel, 12);
+        double decibelsPerNeper = 1 / CableLossModel.NepersPerDecibel;
+        Assert.Equal(20 * Math.Log10(Math.E), decibelsPerNeper, 12);
     }
 
     [Fact]

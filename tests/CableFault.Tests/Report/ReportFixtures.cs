@@ -1,0 +1,55 @@
+using AngleSharp.Dom;
+using AngleSharp.Html.Parser;
+using CableFault.Analysis;
+using CableFault.Cables;
+using CableFault.Networks;
+using CableFault.Reporting;
+using CableFault.Reporting.Html;
+using CableFault.Simulation;
+using CableFault.Traces;
+
+namespace CableFault.Tests.Report;
+
+/// <summary>
+/// A run with known answers, simulated by the forward model: 25 m of 50 Ω line, a 3 m wet section at 35 Ω (an impedance
+/// drop at 25 m, a rise back at 28 m), 12 m more of 50 Ω and an open end at 40 m. The truth is the network built here,
+/// not anything the analysis or the renderer computes.
+/// </summary>
+internal static class ReportFixtures
+{
+    public const double VelocityFactor = 0.66;
+    public const double DropMeters = 25, RiseMeters = 28, OpenMeters = 40;
+
+    /// <summary>Run ID with markup in it: must show as text.</summary>
+    public const string HostileRunId = "<script>alert(1)</script> & \"QB-7\"";
+
+    private static readonly Lazy<Trace> LazyTrace = new(() =>
+    {
+        var line = new CableMedium(50, VelocityFactor, null);
+        var wet = new CableMedium(35, VelocityFactor, null);
+        var network = new CableNetwork(new NetworkBranch([
+            new CableSegment(DropMeters, line), new CableSegment(RiseMeters - DropMeters, wet),
+            new CableSegment(OpenMeters - RiseMeters, line), RunEnd.Open]), "report test run");
+        var settings = InstrumentSettings.DefaultFor(network, 1e-9) with { NoiseRmsVolts = 1e-3, NoiseSeed = 7 };
+        return ForwardModel.Simulate(network, settings)
+            .WithMetadata("vf", "0.66").WithMetadata("z0", "50")
+            .WithMetadata("site", "Test yard 3").WithMetadata("technician", "A. Tester").WithMetadata("date", "2031-04-05T09:15")
+            .WithMetadata("run", HostileRunId);
+    });
+
+    private static readonly Lazy<(LocateResult Result, CableSettings Settings)> LazyLocated = new(() =>
+    {
+        var settings = CableSettings.Resolve(Trace, null, null, null, null, CableLibrary.BuiltIn);
+        return (Locator.Locate(Trace, settings.ToLocateOptions()), settings);
+    });
+
+    public static Trace Trace => LazyTrace.Value;
+    public static LocateResult Result => LazyLocated.Value.Result;
+    public static CableSettings Settings => LazyLocated.Value.Settings;
+
+    public static ReportInput Input(DistanceUnit unit, JobSheet? job = null, RepairCheckPart? repair = null) => new(
+        (job ?? JobSheet.Empty).Over(JobSheet.FromTrace(Trace)), "wet-section.csv", Result, Settings, unit,
+        new DateTimeOffset(2031, 4, 5, 10, 0, 0, TimeSpan.Zero), "0.1.0-test", repair);
+
+    public static IDocument Parse(string html) => new HtmlParser().ParseDocument(html);
+}
