@@ -4,7 +4,7 @@ namespace CableFault.Tests.Hardening;
 
 /// <summary>
 /// Every bad file in Corpus/ goes through every verb that reads that kind of file, in-process: traces (csv/,
-/// touchstone/) through locate, convert and calibrate; run descriptions (network/) through simulate. Each run must end
+/// touchstone/) through locate, convert, calibrate and report; run descriptions (network/) through simulate. Each run must end
 /// with exit code 2 (DESIGN.md §4), exactly one line on stderr that names the file, and no stack trace.
 /// </summary>
 public class CorpusCliTests
@@ -19,7 +19,7 @@ public class CorpusCliTests
         var data = new TheoryData<string, string>();
         foreach (string kind in new[] { "csv", "touchstone" })
             foreach (string file in Files(kind))
-                foreach (string verb in new[] { "locate", "convert", "calibrate" })
+                foreach (string verb in new[] { "locate", "convert", "calibrate", "report" })
                     data.Add(Path.GetRelativePath(CorpusFolder, file), verb);
         return data;
     }
@@ -40,6 +40,7 @@ public class CorpusCliTests
         {
             "convert" => [verb, path, "-o", Path.Combine(Path.GetTempPath(), $"cf-never-written-{Guid.NewGuid():N}.csv")],
             "calibrate" => [verb, path, "--length", "10"],
+            "report" => [verb, path, "-o", Path.Combine(Path.GetTempPath(), $"cf-never-written-{Guid.NewGuid():N}.html")],
             _ => [verb, path],
         };
 
