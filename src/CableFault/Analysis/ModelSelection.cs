@@ -31,6 +31,10 @@ internal static class ModelSelection
     /// much smaller than 1 until the rest of the model is right.</summary>
     private const double EndTrialReflection = 0.3;
 
+    /// <summary>Peak signature over the noise RMS below which an event is dropped: a 3σ excursion is the least a
+    /// detection can rest on (common practice).</summary>
+    internal const double MinimumSignatureSignalToNoise = 3;
+
     /// <summary>Most split rounds (each may split one event).</summary>
     private const int MaximumSplitRounds = 4;
 
@@ -225,6 +229,20 @@ internal static class ModelSelection
             while (best.Model.Events.Count > 0)
             {
                 var ev = EventEvidence(best, data, variance, logN, effectiveRiseSeconds);
+                // An event whose own signature is lost in the noise is no detection, whatever it does to the criterion
+                // (it is soaking up misfit elsewhere): it goes first, unconditionally.
+                double sigma = Math.Sqrt(variance);
+                int faint = Enumerable.Range(0, ev.Count).Where(k => Math.Abs(ev[k].PeakSignatureVolts) < MinimumSignatureSignalToNoise * sigma)
+                    .DefaultIfEmpty(-1).MinBy(k => k < 0 ? 0 : Math.Abs(ev[k].PeakSignatureVolts));
+                if (faint >= 0)
+                {
+                    var reduced = best.Model.Events.Where((_, k) => k != faint);
+                    var refit = ModelFitter.Fit(best.Model.WithEvents(reduced), data, variance, cancellation: cancellation);
+                    trials++;
+                    best = refit;
+                    bestBic = Bic(refit);
+                    continue;
+                }
                 int weakest = Enumerable.Range(0, ev.Count).MinBy(k => ev[k].DeltaBic);
                 if (ev[weakest].DeltaBic >= EvidenceMargin) break;
                 var list = best.Model.Events.ToList();

@@ -76,6 +76,14 @@ internal static partial class BrowserCheck
         return (objects, counts.Count > 0 ? counts.Max() : null);
     }
 
+    /// <summary>Width and height of every /MediaBox in the PDF, points (ISO 32000-1:2008, 7.7.3.3, table 30).</summary>
+    internal static List<(double Width, double Height)> MediaBoxes(byte[] pdf) =>
+        MediaBox().Matches(Encoding.Latin1.GetString(pdf)).Select(m =>
+        {
+            double[] v = Enumerable.Range(1, 4).Select(i => double.Parse(m.Groups[i].Value, System.Globalization.CultureInfo.InvariantCulture)).ToArray();
+            return (v[2] - v[0], v[3] - v[1]);
+        }).ToList();
+
     /// <summary>Mean and standard deviation of the luminance (0…255, ITU-R BT.601 weights) and the share of pixels
     /// that differ from the most common colour (the page background) by more than a faint anti-aliasing edge.</summary>
     internal static (double Mean, double StandardDeviation, double InkFraction, int Width, int Height) Pixels(byte[] png)
@@ -108,6 +116,9 @@ internal static partial class BrowserCheck
         }
         return null;
     }
+
+    [GeneratedRegex(@"/MediaBox\s*\[\s*(-?[\d.]+)\s+(-?[\d.]+)\s+(-?[\d.]+)\s+(-?[\d.]+)\s*\]")]
+    private static partial Regex MediaBox();
 
     [GeneratedRegex(@"/Type\s*/Page(?![A-Za-z])")]
     private static partial Regex PageObject();

@@ -26,14 +26,24 @@ public class BrowserRenderTests
         new JobSheet(ExpectedLengthMeters: ReportFixtures.OpenMeters, Instrument: [new("Instrument", "bench reflectometer 2")]),
         new RepairCheckPart("before.csv", "not in this build")));
 
-    [ChromiumFact]
-    public void PrintsToAFewPdfPages()
+    [ChromiumTheory]
+    // Chromium prints on Letter unless the page asks otherwise; the report asks for "auto" (the reader's paper), so
+    // A4 is forced here by one extra rule. Sizes in PDF points (1/72 in): Letter 8.5 × 11 in, A4 210 × 297 mm
+    // (ISO 216), i.e. 612 × 792 and 595.3 × 841.9.
+    [InlineData("letter", "", 612, 792)]
+    [InlineData("a4", "<style>@page { size: A4; }</style>", 595, 842)]
+    public void PrintsToAFewPdfPages(string name, string pageRule, int widthPoints, int heightPoints)
     {
-        var rendering = BrowserCheck.Render(Html(DistanceUnit.Meters), "desktop", 1200, 1800);
+        string html = Html(DistanceUnit.Meters).Replace("</head>", pageRule + "</head>", StringComparison.Ordinal);
+        var rendering = BrowserCheck.Render(html, "print-" + name, 1200, 1800);
         Assert.Equal("%PDF-", System.Text.Encoding.ASCII.GetString(rendering.Pdf, 0, 5));
         var (objects, treeCount) = BrowserCheck.CountPdfPages(rendering.Pdf);
         Assert.InRange(objects, 1, MaximumPages);
         if (treeCount is int count) Assert.Equal(objects, count);
+        var boxes = BrowserCheck.MediaBoxes(rendering.Pdf);
+        Assert.NotEmpty(boxes);
+        // Within a point: PDF writers round the A4 size.
+        Assert.All(boxes, box => Assert.True(Math.Abs(box.Width - widthPoints) <= 1 && Math.Abs(box.Height - heightPoints) <= 1, $"page {box.Width} × {box.Height} pt"));
     }
 
     [ChromiumFact]

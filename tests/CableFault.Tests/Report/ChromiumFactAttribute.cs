@@ -12,3 +12,14 @@ public sealed class ChromiumFactAttribute : FactAttribute
             Skip = $"chromium is not on PATH (Debian package chromium); set {BrowserCheck.RequireVariable}=1 to make this a failure";
     }
 }
+
+/// <summary>The theory twin of <see cref="ChromiumFactAttribute"/>: skipped with the reason shown when chromium is missing,
+/// failed instead when CABLEFAULT_REQUIRE_CHROMIUM=1.</summary>
+public sealed class ChromiumTheoryAttribute : TheoryAttribute
+{
+    public ChromiumTheoryAttribute()
+    {
+        if (BrowserCheck.BrowserPath is null && !BrowserCheck.IsRequired)
+            Skip = $"chromium is not on PATH (Debian package chromium); set {BrowserCheck.RequireVariable}=1 to make this a failure";
+    }
+}

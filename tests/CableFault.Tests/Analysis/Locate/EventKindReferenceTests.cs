@@ -137,6 +137,8 @@ public class EventKindReferenceTests
         Assert.InRange(tap.Reflection, -1.0 / 3 - ReflectionTolerance, -1.0 / 3 + ReflectionTolerance);
         AssertDistance(tap, 12);
         Assert.Contains(result.Events, e => e.Kind == EventKind.Open && Math.Abs(e.DistanceMeters - 32) <= DistanceTolerance(32));
+        // The branch end's echo and the re-reflections belong to the tap; they are not events of their own.
+        Assert.Equal(2, result.Events.Count);
     }
 
     [Fact]
