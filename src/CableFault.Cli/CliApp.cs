@@ -39,6 +39,7 @@ public static class CliApp
         root.Subcommands.Add(SimulateCommand.Create(context));
         root.Subcommands.Add(CablesCommand.Create(context));
         root.Subcommands.Add(LocateCommand.Create(context));
+        root.Subcommands.Add(CompareCommand.Create(context));
         root.Subcommands.Add(CalibrateCommand.Create(context));
         root.Subcommands.Add(ConvertCommand.Create(context));
         root.Subcommands.Add(ReportCommand.Create(context));

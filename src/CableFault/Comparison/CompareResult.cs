@@ -33,7 +33,7 @@ public sealed record CompareResult
     public required double[] Difference { get; init; }
 
     /// <summary>Half-width of the noise band, in units of the incident step: k·√(σ_b² + σ_c²) (each σ relative to its
-    /// own step), at least <see cref="CompareOptions.MinimumBandRelative"/>.</summary>
+    /// own step), at least <see cref="RepairCheckOptions.MinimumBandRelative"/>.</summary>
     public required double NoiseBand { get; init; }
 
     /// <summary>Stretches where the difference leaves the noise band, nearest first.</summary>

@@ -8,12 +8,13 @@ public sealed record CompareTolerances
 {
     /// <summary>
     /// Default largest change of reflection (dimensionless, in units of the incident step) accepted for an event, and
-    /// the smallest new or vanished event that fails the check: 0.02, a return loss of 34 dB. A sound connector pair or
-    /// splice on coax stays below about |ρ| = 0.02–0.03 at the frequencies a sub-nanosecond edge carries (common
-    /// practice), so a new event above this is a workmanship problem; below it two captures of one run differ only by
-    /// noise and the fit's spread (with 1 mV noise on a 0.5 V step, the combined noise band is about 0.015).
+    /// the largest difference a new or vanished event may leave: 0.03, a return loss of about 30 dB. A sound connector
+    /// pair or splice on coax stays below about |ρ| = 0.02–0.03 at the frequencies a sub-nanosecond edge carries
+    /// (common practice), so a repair made with good connectors passes and a poor splice, a crushed spot or a tap
+    /// fails. It is four times the combined noise band of two 1 mV captures of a 1 V step (0.007) and twice that of
+    /// two 2 mV captures, so noise alone does not reach it.
     /// </summary>
-    public const double DefaultReflection = 0.02;
+    public const double DefaultReflection = 0.03;
 
     /// <summary>
     /// Default largest shift of an event, m: 0.25. Two captures with the same settings place an unchanged event within

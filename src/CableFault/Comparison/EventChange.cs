@@ -8,8 +8,11 @@ namespace CableFault.Comparison;
 /// <param name="Current">The event on the current trace, or null when it is gone.</param>
 /// <param name="ExceedsTolerance">True when this change fails the check.</param>
 /// <param name="Description">One readable sentence (distances in metres).</param>
+/// <param name="PeakDifference">Largest trace difference (current − baseline, in units of the incident step, signed)
+/// within a rise time of the event: the size of a new or gone event as the instrument saw it, independent of the
+/// model fit.</param>
 public sealed record EventChange(EventChangeKind Kind, LocatedEvent? Baseline, LocatedEvent? Current, bool ExceedsTolerance,
-    string Description)
+    string Description, double PeakDifference)
 {
     /// <summary>Where the event is now (or was, when gone), m from the reference plane.</summary>
     public double DistanceMeters => (Current ?? Baseline)!.DistanceMeters;

@@ -16,7 +16,7 @@ public static class RepairCheck
     /// <summary>Compares <paramref name="current"/> against <paramref name="baseline"/>. Throws
     /// <see cref="InputException"/> on bad options, unusable traces, or traces read with different cable settings that
     /// the options do not settle.</summary>
-    public static CompareResult Compare(Trace baseline, Trace current, CompareOptions options)
+    public static CompareResult Compare(Trace baseline, Trace current, RepairCheckOptions options)
     {
         ArgumentNullException.ThrowIfNull(baseline);
         ArgumentNullException.ThrowIfNull(current);
@@ -38,18 +38,25 @@ public static class RepairCheck
         double blind = Math.Max(locB.BlindZoneMeters, locC.BlindZoneMeters);
 
         var tol = options.Tolerances;
-        var changes = CompareEvents(locB.Events.Where(e => e.DistanceMeters > blind).ToList(),
-            locC.Events.Where(e => e.DistanceMeters > blind).ToList(), tol);
-
         double v = settings.VelocityFactor * PhysicalConstants.SpeedOfLightMetersPerSecond;
         var distances = pair.Baseline.TimesSeconds().Select(t => v * t / 2).ToArray();
         var difference = new double[distances.Length];
         for (int i = 0; i < difference.Length; i++) difference[i] = pair.Current.SamplesVolts[i] - pair.Baseline.SamplesVolts[i];
-        double band = Math.Max(CompareOptions.MinimumBandRelative,
+        double band = Math.Max(RepairCheckOptions.MinimumBandRelative,
             options.NoiseBandSigmas * Math.Sqrt(pair.BaselineNoiseRelative * pair.BaselineNoiseRelative + pair.CurrentNoiseRelative * pair.CurrentNoiseRelative));
+        // One rise time of round trip, as a distance: the reach of an event's own edge.
+        double slack = v * Math.Max(pair.BaselineRiseSeconds, pair.CurrentRiseSeconds) / 2;
+        double PeakNear(double meters) => PeakDifference(distances, difference, meters, 2 * slack);
+
+        var eventsB = OnTheRun(locB, blind, out double endB);
+        var eventsC = OnTheRun(locC, blind, out double endC);
+        int beyond = locB.Events.Count + locC.Events.Count - eventsB.Count - eventsC.Count;
+        if (beyond > 0)
+            warnings.Add(Invariant($"{beyond} event(s) found beyond the end of the run ({endB:0.00} m baseline, {endC:0.00} m current) or in the blind zone were left out: past an open or short end they can only be re-reflections"));
+        var changes = CompareEvents(eventsB, eventsC, tol, PeakNear);
+
         // A change alters everything after it (transmitted level, later echoes): a region is explained by any change
         // that lies before its end, with one rise time of slack for the change's own edge.
-        double slack = v * Math.Max(pair.BaselineRiseSeconds, pair.CurrentRiseSeconds) / 2;
         double firstChange = changes.Where(c => c.Kind != EventChangeKind.Unchanged).Select(c => Math.Min(c.Baseline?.DistanceMeters ?? double.MaxValue, c.Current?.DistanceMeters ?? double.MaxValue))
             .DefaultIfEmpty(double.PositiveInfinity).Min();
         var regions = FindRegions(distances, difference, band, slack, firstChange);
@@ -78,7 +85,7 @@ public static class RepairCheck
     }
 
     /// <summary>Resolves the cable settings of both traces and refuses when they disagree and no option settles it.</summary>
-    private static CableSettings ResolveSettings(Trace baseline, Trace current, CompareOptions options, out IReadOnlyList<string> warnings)
+    private static CableSettings ResolveSettings(Trace baseline, Trace current, RepairCheckOptions options, out IReadOnlyList<string> warnings)
     {
         var sb = CableSettings.Resolve(baseline, options.VelocityFactor, options.ImpedanceOhms, options.CableDesignation,
             options.SourceImpedanceOhms, options.Library);
@@ -97,24 +104,56 @@ public static class RepairCheck
 
     private static bool Differ(double a, double b) => Math.Abs(a - b) > SameSettingFraction * Math.Max(Math.Abs(a), Math.Abs(b));
 
-    private static List<EventChange> CompareEvents(IReadOnlyList<LocatedEvent> baseline, IReadOnlyList<LocatedEvent> current, CompareTolerances tol)
+    /// <summary>The events on the run itself: outside the blind zone and not past the first open or short end (after an
+    /// end with |ρ| ≥ <see cref="EndReflection"/> nothing is transmitted further, so later "events" are re-reflections).</summary>
+    private static List<LocatedEvent> OnTheRun(LocateResult located, double blindMeters, out double endMeters)
+    {
+        var kept = new List<LocatedEvent>();
+        endMeters = double.PositiveInfinity;
+        foreach (var e in located.Events.OrderBy(e => e.DistanceMeters))
+        {
+            if (e.DistanceMeters <= blindMeters) continue;
+            kept.Add(e);
+            if (e.Kind is EventKind.Open or EventKind.Short && Math.Abs(e.Reflection) >= EndReflection) { endMeters = e.DistanceMeters; break; }
+        }
+        return kept;
+    }
+
+    /// <summary>|ρ| from which an open or short is taken as the end of the run: 0.8 leaves room for the loss of a long
+    /// run (a far open on lossy coax can read 0.85–0.95) while no splice or tap comes near it.</summary>
+    public const double EndReflection = 0.8;
+
+    private static double PeakDifference(double[] distances, double[] difference, double meters, double halfWidthMeters)
+    {
+        double peak = 0;
+        for (int i = 0; i < distances.Length; i++)
+            if (Math.Abs(distances[i] - meters) <= halfWidthMeters && Math.Abs(difference[i]) > Math.Abs(peak)) peak = difference[i];
+        return peak;
+    }
+
+    private static List<EventChange> CompareEvents(IReadOnlyList<LocatedEvent> baseline, IReadOnlyList<LocatedEvent> current,
+        CompareTolerances tol, Func<double, double> peakNear)
     {
         var changes = new List<EventChange>();
         foreach (var (ib, ic) in EventMatcher.Match(baseline, current, tol.MatchWindowMeters))
         {
             var b = ib >= 0 ? baseline[ib] : null;
             var c = ic >= 0 ? current[ic] : null;
+            // A new or gone event is judged by what the traces show at its place (the difference at the captured rise
+            // time), not by the fitted reflection: the fit may read it at a smoothed rise, or invent it in one trace.
             if (b is null)
             {
-                bool big = Math.Abs(c!.Reflection) > tol.Reflection;
+                double peak = peakNear(c!.DistanceMeters);
+                bool big = Math.Abs(peak) > tol.Reflection;
                 changes.Add(new EventChange(EventChangeKind.New, null, c, big, Invariant(
-                    $"new {Name(c.Kind)} at {c.DistanceMeters:0.00} m, reflection {S(c.Reflection, 3)}{(big ? "" : " (below the tolerance)")}")));
+                    $"new {Name(c.Kind)} at {c.DistanceMeters:0.00} m: the trace differs by {S(peak, 3)} there{(big ? "" : " (within the tolerance)")}"), peak));
             }
             else if (c is null)
             {
-                bool big = Math.Abs(b.Reflection) > tol.Reflection;
+                double peak = peakNear(b.DistanceMeters);
+                bool big = Math.Abs(peak) > tol.Reflection;
                 changes.Add(new EventChange(EventChangeKind.Gone, b, null, big, Invariant(
-                    $"{Name(b.Kind)} at {b.DistanceMeters:0.00} m (reflection {S(b.Reflection, 3)}) is gone{(big ? "" : " (it was below the tolerance)")}")));
+                    $"{Name(b.Kind)} at {b.DistanceMeters:0.00} m is gone: the trace differs by {S(peak, 3)} there{(big ? "" : " (within the tolerance)")}"), peak));
             }
             else
             {
@@ -131,7 +170,7 @@ public static class RepairCheck
                     EventChangeKind.Changed => Invariant($"{kindNote} at {c.DistanceMeters:0.00} m changed: reflection {S(b.Reflection, 3)} → {S(c.Reflection, 3)}{(valueChanged ? Invariant($", value {b.Value:G3} → {c.Value:G3}") : "")}"),
                     _ => Invariant($"{kindNote} at {c.DistanceMeters:0.00} m unchanged (shift {S(shift, 3)} m, reflection change {S(dRho, 3)})"),
                 };
-                changes.Add(new EventChange(kind, b, c, moved || changed, text));
+                changes.Add(new EventChange(kind, b, c, moved || changed, text, peakNear(c.DistanceMeters)));
             }
         }
         return changes;

@@ -43,7 +43,7 @@ internal static class TracePairPreparation
         double rb = cb.RiseTimeSeconds, rc = cc.RiseTimeSeconds;
         bool matched = false;
         double slow = Math.Max(rb, rc), fast = Math.Min(rb, rc);
-        if (slow - fast > CompareOptions.RiseMismatchWarningFraction * slow)
+        if (slow - fast > RepairCheckOptions.RiseMismatchWarningFraction * slow)
         {
             if (matchRise)
             {

@@ -40,8 +40,8 @@ internal static class CompareFixtures
         ForwardModel.Simulate(network, Settings(noiseVolts, seed, intervalSeconds, preTriggerSeconds, recordSeconds))
             .WithMetadata("vf", "0.66").WithMetadata("z0", "50").WithMetadata("run", name);
 
-    internal static CompareResult Compare(Trace baseline, Trace current, CompareOptions? options = null) =>
-        RepairCheck.Compare(baseline, current, options ?? new CompareOptions());
+    internal static CompareResult Compare(Trace baseline, Trace current, RepairCheckOptions? options = null) =>
+        RepairCheck.Compare(baseline, current, options ?? new RepairCheckOptions());
 
     internal static string Describe(CompareResult result) =>
         $"pass={result.Pass}; band={result.NoiseBand:G3}; " + string.Join(" | ", result.Events.Select(e => e.Description))

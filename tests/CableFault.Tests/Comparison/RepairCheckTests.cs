@@ -38,7 +38,8 @@ public class RepairCheckTests
     [Fact]
     public void RepairThatLeavesASpliceBumpFailsAndLocatesIt()
     {
-        // 3 nH at 20 m: a peak reflection near 0.04 with a 0.5 ns edge, twice the default tolerance.
+        // 3 nH at 20 m on lossless line: a peak near 0.06 with a 0.5 ns edge (τ = L/2Z₀ = 30 ps; peak ≈ τ/(σ√2π)
+        // for σ = 0.195 ns, DESIGN.md §2 signature), twice the default tolerance.
         var installed = Capture(Installed(), FieldNoiseVolts, 1);
         var repaired = Capture(Run(Segment(8), new SeriesInductor(4e-9), Segment(12), new SeriesInductor(3e-9), Segment(10), RunEnd.Open),
             FieldNoiseVolts, 3);
@@ -126,7 +127,7 @@ public class RepairCheckTests
         var c = Capture(Installed(), FieldNoiseVolts, 2).WithMetadata("z0", "75");
         Assert.Contains("--z0", Assert.Throws<InputException>(() => Compare(a, c)).Message);
 
-        var settled = Compare(a, b, new CompareOptions { VelocityFactor = 0.66 });
+        var settled = Compare(a, b, new RepairCheckOptions { VelocityFactor = 0.66 });
         Assert.Equal(0.66, settled.Settings.VelocityFactor);
         Assert.Equal("option", settled.Settings.VelocityFactorSource);
     }
@@ -136,7 +137,7 @@ public class RepairCheckTests
     {
         var a = Capture(Installed(), FieldNoiseVolts, 1);
         var e = Assert.Throws<InputException>(() => Compare(a, a,
-            new CompareOptions { Tolerances = new CompareTolerances { Reflection = -1, DistanceMeters = 0 } }));
+            new RepairCheckOptions { Tolerances = new CompareTolerances { Reflection = -1, DistanceMeters = 0 } }));
         Assert.Contains("--tolerance-reflection", e.Message);
         Assert.Contains("--tolerance-distance-m", e.Message);
     }

@@ -27,7 +27,7 @@ public class RiseMatchingTests
 
         var unmatched = Compare(fast, slow);
         Assert.Contains(unmatched.Warnings, w => w.Contains("--match-rise"));
-        var matched = Compare(fast, slow, new CompareOptions { MatchRise = true });
+        var matched = Compare(fast, slow, new RepairCheckOptions { MatchRise = true });
         Assert.True(matched.RiseMatched);
         Assert.True(matched.Pass, Describe(matched));
         // Matching removes most of the false difference at the open end (a rise mismatch of 40 % leaves ~10 % of ρ there).

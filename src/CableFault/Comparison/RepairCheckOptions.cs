@@ -3,7 +3,7 @@ using CableFault.Cables;
 namespace CableFault.Comparison;
 
 /// <summary>What <see cref="RepairCheck.Compare"/> needs besides the two traces.</summary>
-public sealed record CompareOptions
+public sealed record RepairCheckOptions
 {
     /// <summary>
     /// Default half-width of the noise band in standard deviations of the combined noise: 5. The chance that white
