@@ -25,6 +25,14 @@ internal sealed class JsonProblems
         int nul = bytes[..Math.Min(bytes.Length, 4096)].IndexOf((byte)0);
         if (nul >= 0)
             throw new InputException($"{sourceName}: byte {nul + 1} is NUL, so this is binary data or UTF-16 without a byte-order mark, not JSON text; save the file as UTF-8 text");
+        if (!System.Text.Unicode.Utf8.IsValid(bytes))
+        {
+            // Strings with broken UTF-8 would otherwise fail later, deep inside the JSON library, with no line.
+            int at = 0;
+            while (at < bytes.Length && System.Text.Rune.DecodeFromUtf8(bytes[at..], out _, out int used) == System.Buffers.OperationStatus.Done) at += used;
+            int line = 1 + bytes[..at].Count((byte)'\n');
+            throw new InputException($"{sourceName}: line {line}: byte {at + 1} is not valid UTF-8; save the file as UTF-8 text");
+        }
     }
 
     internal static JsonDocument Parse(Stream stream, string sourceName, long maximumBytes)

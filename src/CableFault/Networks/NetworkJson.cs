@@ -160,10 +160,10 @@ public static class NetworkJson
         NetworkElement? element = type switch
         {
             "segment" => ReadSegment(item, at, state),
-            "shunt_c" => problems.Number(item, "capacitance_pf", at, true, 0, exclusiveMin: true) is double pf ? new ShuntCapacitor(pf * 1e-12) : null,
-            "series_l" => problems.Number(item, "inductance_nh", at, true, 0, exclusiveMin: true) is double nh ? new SeriesInductor(nh * 1e-9) : null,
-            "shunt_r" => problems.Number(item, "resistance_ohms", at, true, 0, exclusiveMin: true) is double r ? new ShuntResistor(r) : null,
-            "series_r" => problems.Number(item, "resistance_ohms", at, true, 0, exclusiveMin: true) is double r2 ? new SeriesResistor(r2) : null,
+            "shunt_c" => problems.Number(item, "capacitance_pf", at, true, PlausibleRanges.MinimumCapacitancePf, PlausibleRanges.MaximumCapacitancePf) is double pf ? new ShuntCapacitor(pf * 1e-12) : null,
+            "series_l" => problems.Number(item, "inductance_nh", at, true, PlausibleRanges.MinimumInductanceNh, PlausibleRanges.MaximumInductanceNh) is double nh ? new SeriesInductor(nh * 1e-9) : null,
+            "shunt_r" => problems.Number(item, "resistance_ohms", at, true, PlausibleRanges.MinimumResistanceOhms, PlausibleRanges.MaximumResistanceOhms) is double r ? new ShuntResistor(r) : null,
+            "series_r" => problems.Number(item, "resistance_ohms", at, true, PlausibleRanges.MinimumResistanceOhms, PlausibleRanges.MaximumResistanceOhms) is double r2 ? new SeriesResistor(r2) : null,
             "junction" => ReadJunction(item, at, state, depth),
             "end" => ReadEnd(item, at, problems),
             _ => null,
@@ -226,10 +226,10 @@ public static class NetworkJson
             case "short": return RunEnd.Short;
             case "matched": return RunEnd.Matched;
             case "resistor":
-                return problems.Number(item, "resistance_ohms", at, true, 0, exclusiveMin: true) is double r ? RunEnd.Resistor(r) : null;
+                return problems.Number(item, "resistance_ohms", at, true, PlausibleRanges.MinimumResistanceOhms, PlausibleRanges.MaximumResistanceOhms) is double r ? RunEnd.Resistor(r) : null;
             case "rc":
-                double? rr = problems.Number(item, "resistance_ohms", at, true, 0, exclusiveMin: true);
-                double? pf = problems.Number(item, "capacitance_pf", at, true, 0, exclusiveMin: true);
+                double? rr = problems.Number(item, "resistance_ohms", at, true, PlausibleRanges.MinimumResistanceOhms, PlausibleRanges.MaximumResistanceOhms);
+                double? pf = problems.Number(item, "capacitance_pf", at, true, PlausibleRanges.MinimumCapacitancePf, PlausibleRanges.MaximumCapacitancePf);
                 return rr is null || pf is null ? null : new RunEnd(EndKind.ResistorParallelCapacitor, rr.Value, pf.Value * 1e-12);
             default:
                 problems.Add($"{at}.end", $"unknown end '{kind}'; expected open, short, matched, resistor or rc");
