@@ -17,9 +17,21 @@ public static class CliApp
     /// <summary>Exit code: a bug in CableFault (please report it).</summary>
     public const int InternalError = 3;
 
+    /// <summary>The version of this build (informational version: number and commit).</summary>
+    public static string Version { get; } =
+        typeof(CliApp).Assembly.GetCustomAttributes(typeof(System.Reflection.AssemblyInformationalVersionAttribute), false)
+            .OfType<System.Reflection.AssemblyInformationalVersionAttribute>().FirstOrDefault()?.InformationalVersion
+        ?? typeof(CliApp).Assembly.GetName().Version?.ToString(3) ?? "unknown";
+
     /// <summary>Parses and runs one command line.</summary>
     public static int Run(string[] args, TextWriter output, TextWriter error)
     {
+        if (args is ["--version"])
+        {
+            // The built-in option reports the entry assembly, which is the test host when the CLI runs in-process.
+            output.WriteLine(Version);
+            return Success;
+        }
         var context = new CliContext(output, error, args.Contains("--debug"));
         var root = new RootCommand(
             "CableFault: turns a reflectometer step-response trace into fault locations in metres from the connector, with an honest ± figure.");

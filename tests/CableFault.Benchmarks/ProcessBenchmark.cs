@@ -10,10 +10,17 @@ namespace CableFault.Benchmarks;
 /// </summary>
 public static class ProcessBenchmark
 {
-    private const int Repeats = 7;
+    private const int Repeats = 9;
 
     public static int Run(string[] args)
     {
+        string? native = null;
+        int nativeAt = Array.IndexOf(args, "--native");
+        if (nativeAt >= 0 && nativeAt + 1 < args.Length)
+        {
+            native = args[nativeAt + 1];
+            args = args.Where((_, i) => i != nativeAt && i != nativeAt + 1).ToArray();
+        }
         string? cli = args.FirstOrDefault() ?? FindCli();
         if (cli is null || !File.Exists(cli))
         {
@@ -27,8 +34,15 @@ public static class ProcessBenchmark
         File.WriteAllText(netlist, Netlist);
 
         // Same span and step: 1 ns Gaussian-like edge, 125 ps sampling, 1 µs.
-        var ours = Time(() => Start("dotnet", $"\"{cli}\" simulate \"{network}\" -o \"{Path.Combine(folder, "out.csv")}\" --rise-time-ns 1 --sample-interval-ps 125 --duration-ns 1000"));
-        Console.WriteLine($"cablefault simulate: median {ours:F3} s over {Repeats} runs");
+        string simulateArguments = $"simulate \"{network}\" -o \"{Path.Combine(folder, "out.csv")}\" --rise-time-ns 1 --sample-interval-ps 125 --duration-ns 1000";
+        var ours = Time(() => Start("dotnet", $"\"{cli}\" {simulateArguments}"));
+        Console.WriteLine($"cablefault simulate (dotnet, JIT):  median {ours:F3} s over {Repeats} runs");
+        double? oursNative = null;
+        if (native is not null && File.Exists(native))
+        {
+            oursNative = Time(() => Start(native, simulateArguments));
+            Console.WriteLine($"cablefault simulate (native AOT):   median {oursNative:F3} s over {Repeats} runs");
+        }
         if (!OnPath("ngspice"))
         {
             Console.WriteLine("ngspice not found on PATH: install it (apt-get install ngspice) for the ratio");
@@ -36,7 +50,8 @@ public static class ProcessBenchmark
         }
         var theirs = Time(() => Start("ngspice", $"-b \"{netlist}\"", folder));
         Console.WriteLine($"ngspice -b:           median {theirs:F3} s over {Repeats} runs");
-        Console.WriteLine($"ratio ngspice / cablefault = {theirs / ours:F1}× (target ≥ 20×)");
+        Console.WriteLine($"ratio ngspice / cablefault (JIT)    = {theirs / ours:F1}× (target ≥ 20×)");
+        if (oursNative is double n) Console.WriteLine($"ratio ngspice / cablefault (native) = {theirs / n:F1}× (target ≥ 20×)");
         return 0;
     }
 

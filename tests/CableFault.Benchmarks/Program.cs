@@ -3,7 +3,9 @@ using CableFault.Benchmarks;
 
 // Usage:
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- forward        (BenchmarkDotNet: forward model vs one FFT)
-//   dotnet run -c Release --project tests/CableFault.Benchmarks -- process        (whole-process cablefault simulate vs ngspice)
+//   dotnet run -c Release --project tests/CableFault.Benchmarks -- process [CLI.dll] [--native PATH]
+//        (whole-process cablefault simulate vs ngspice; --native times a Native AOT build too, made with
+//         dotnet publish src/CableFault.Cli -c Release -r linux-x64 -p:PublishAot=true -o out/native)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- accuracy [--cases N] [--out FILE]   (locate accuracy, Accuracy/)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- --filter '*'   (any BenchmarkDotNet arguments)
 string mode = args.Length > 0 ? args[0] : "forward";

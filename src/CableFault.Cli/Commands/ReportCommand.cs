@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Reflection;
 using CableFault.Analysis;
 using CableFault.Cli.Infrastructure;
+using CableFault.Comparison;
 using CableFault.Reporting;
 using CableFault.Reporting.Html;
 
@@ -59,10 +60,28 @@ public static class ReportCommand
             RepairCheckPart? repair = null;
             if (parsed.GetValue(baseline) is FileInfo baselineFile)
             {
-                var base_ = TraceFiles.Load(baselineFile, transform);
-                repair = new RepairCheckPart(base_.Name,
-                    "This build of CableFault cannot compare traces yet, so no repair verdict is given; compare the plots by eye or run the report again with a newer build.");
-                context.Warn("the repair check is not available in this build; the report says so");
+                var before = TraceFiles.Load(baselineFile, transform);
+                foreach (string warning in before.Warnings) context.Warn($"{before.Name}: {warning}");
+                // Both traces are read with the settings resolved for the current one, so the comparison cannot
+                // disagree with the rest of the report.
+                var compareOptions = new RepairCheckOptions
+                {
+                    VelocityFactor = settings.VelocityFactor,
+                    ImpedanceOhms = settings.ImpedanceOhms,
+                    SourceImpedanceOhms = settings.SourceImpedanceOhms,
+                    CableDesignation = settings.Cable?.Designation,
+                    Library = library,
+                };
+                try
+                {
+                    repair = new RepairCheckPart(before.Name, RepairCheck.Compare(before.Trace, loaded.Trace, compareOptions));
+                }
+                catch (InputException e)
+                {
+                    // The measurement is still worth reporting; the document says why the check is missing.
+                    repair = new RepairCheckPart(before.Name, null, $"The traces could not be compared: {e.Message}");
+                    context.Warn($"repair check not made: {e.Message}");
+                }
             }
 
             var input = new ReportInput(sheet, loaded.Name, result, settings, unit, DateTimeOffset.UtcNow, Version(), repair);
@@ -71,6 +90,11 @@ public static class ReportCommand
             AtomicFile.WriteText(target.FullName, writer => writer.Write(html));
             context.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
                 $"wrote {target.Name}: {result.Events.Count} event(s), {html.Length / 1024.0:0} kB"));
+            if (repair?.Comparison is { Pass: false })
+            {
+                context.Error.WriteLine("repair check: FAIL (see the report)");
+                return CliApp.CheckFailed;
+            }
             return CliApp.Success;
         });
         return command;

@@ -43,7 +43,7 @@ public static class SimulateCommand
 
         var command = new Command("simulate",
             "Compute the step-response trace a reflectometer would record on a described cable run.\n\n" +
-            "Example:\n  cablefault simulate traces/harbour-view/mast-feeder.network.json -o mast.csv --png mast.png")
+            "Example:\n  cablefault simulate traces/quillon-bay/mast-feeder.network.json -o mast.csv --png mast.png")
         {
             network, output, rise, interval, duration, samples, pre, source, amplitude, noise, seed, edge, png, svg, units, cables, meta, s1p, fMax, points,
         };

@@ -79,6 +79,12 @@ public static class HtmlReport
             : FindingWords.NothingFound(input.Result.BlindZoneMeters, input.Unit))).Append('.');
         if (findings.Count > 0) html.Append(" <span class=\"ref\">(event ").Append(findings[0].Number).Append(")</span>");
         html.Append("</p>\n");
+        if (input.RepairCheck is { Comparison: { } comparison })
+        {
+            string first = comparison.Reasons.Count > 0 ? " " + ReportNumbers.ConvertMeters(comparison.Reasons[0], input.Unit) : "";
+            html.Append("<p class=\"repair-line\"><strong>Repair check: ").Append(comparison.Pass ? "PASS" : "FAIL").Append(".</strong>")
+                .Append(HtmlText.Escape(first)).Append(" <span class=\"ref\">(see the repair check)</span></p>\n");
+        }
         var others = findings.Skip(1).Where(f => f.Role != FindingRole.BeyondEnd).ToList();
         if (others.Count > 0)
         {

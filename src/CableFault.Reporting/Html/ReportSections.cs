@@ -81,8 +81,64 @@ internal static class ReportSections
     {
         Heading(html, number, "Repair check against the baseline", "repair");
         html.Append("<p>Baseline: <span class=\"file\">").Append(HtmlText.Escape(repair.BaselineName)).Append("</span></p>\n");
-        if (repair.UnavailableReason is string reason)
-            html.Append("<p class=\"verdict\">Comparison not available.</p>\n<p>").Append(HtmlText.Escape(reason)).Append("</p>\n");
+        if (repair.Comparison is not { } comparison)
+        {
+            html.Append("<p class=\"verdict\">Comparison not available.</p>\n<p>")
+                .Append(HtmlText.Escape(repair.UnavailableReason ?? "No reason was given.")).Append("</p>\n");
+            return;
+        }
+        html.Append(comparison.Pass
+            ? "<p class=\"verdict pass\">Verdict: PASS — the run matches its baseline within the tolerances below.</p>\n"
+            : "<p class=\"verdict fail\">Verdict: FAIL — the run differs from its baseline beyond the tolerances below.</p>\n");
+        html.Append("<ul class=\"reasons\">\n");
+        foreach (string reason in comparison.Reasons)
+            html.Append("<li>").Append(HtmlText.Escape(ReportNumbers.ConvertMeters(reason, unit))).Append("</li>\n");
+        html.Append("</ul>\n");
+
+        var listed = comparison.Events.Where(e => e.Kind != Comparison.EventChangeKind.Unchanged || e.ExceedsTolerance)
+            .Concat(comparison.Events.Where(e => e.Kind == Comparison.EventChangeKind.Unchanged && !e.ExceedsTolerance))
+            .ToList();
+        var figure = RepairCheckFigures.Build(comparison, listed, unit);
+        string data = Convert.ToBase64String(Encoding.UTF8.GetBytes(Plots.FigureRenderer.ToSvg(figure)));
+        html.Append("<figure class=\"figure\">\n<img alt=\"Upper panel: baseline (dashed) and current (solid) traces against distance; ")
+            .Append("lower panel: their difference with the noise band shaded.\" src=\"data:image/svg+xml;base64,").Append(data).Append("\">\n")
+            .Append("<figcaption>Upper: baseline (dashed) and current (solid), each divided by its own incident step and aligned on its edge. ")
+            .Append("Lower: current − baseline; the shaded band (± ").Append(ReportNumbers.Plain(comparison.NoiseBand))
+            .Append(" of the step) is what noise alone can explain. Lines c1, c2, … are the changes of the table below.</figcaption>\n</figure>\n");
+
+        if (listed.Count > 0)
+        {
+            html.Append("<div class=\"tablewrap\"><table class=\"changes\">\n<thead><tr><th>Mark</th><th>Distance (").Append(unit.Symbol)
+                .Append(")</th><th>Change</th><th>Shift (").Append(unit.Symbol).Append(")</th><th>Δρ</th><th>Outside tolerance</th><th>Details</th></tr></thead>\n<tbody>\n");
+            for (int i = 0; i < listed.Count; i++)
+            {
+                var change = listed[i];
+                html.Append("<tr class=\"").Append(change.ExceedsTolerance ? "attention" : "expected").Append("\">")
+                    .Append("<td data-label=\"Mark\">c").Append(i + 1).Append("</td>")
+                    .Append("<td class=\"n\" data-label=\"Distance (").Append(unit.Symbol).Append(")\">").Append(ReportNumbers.Fixed(unit.FromMeters(change.DistanceMeters), 2)).Append("</td>")
+                    .Append("<td data-label=\"Change\">").Append(HtmlText.Escape(Comparison.EventChangeKindNames.ToJsonName(change.Kind))).Append("</td>")
+                    .Append("<td class=\"n\" data-label=\"Shift (").Append(unit.Symbol).Append(")\">")
+                    .Append(change.ShiftMeters is double shift ? ReportNumbers.Fixed(unit.FromMeters(shift), 2) : "—").Append("</td>")
+                    .Append("<td class=\"n\" data-label=\"Δρ\">").Append(change.ReflectionChange.ToString("+0.000;−0.000;0.000", CultureInfo.InvariantCulture)).Append("</td>")
+                    .Append("<td data-label=\"Outside tolerance\">").Append(change.ExceedsTolerance ? "<span class=\"tag attention\">yes</span>" : "no").Append("</td>")
+                    .Append("<td class=\"what\">").Append(HtmlText.Escape(ReportNumbers.ConvertMeters(change.Description, unit))).Append("</td></tr>\n");
+            }
+            html.Append("</tbody></table></div>\n");
+        }
+        var t = comparison.Tolerances;
+        html.Append("<p class=\"note\">Tolerances: an event may move by up to ").Append(HtmlText.Escape(unit.Format(t.DistanceMeters, 2)))
+            .Append(" and its reflection change by up to ").Append(ReportNumbers.Plain(t.Reflection))
+            .Append(" of the step; a new or vanished event, or an unexplained difference, larger than that fails the check. ")
+            .Append("Rise times: baseline ").Append(ReportNumbers.Seconds(comparison.BaselineRiseTimeSeconds))
+            .Append(", current ").Append(ReportNumbers.Seconds(comparison.CurrentRiseTimeSeconds))
+            .Append(comparison.RiseMatched ? " (the sharper one was slowed to match)." : ".").Append("</p>\n");
+        if (comparison.Warnings.Count > 0)
+        {
+            html.Append("<ul class=\"note\">\n");
+            foreach (string warning in comparison.Warnings)
+                html.Append("<li>").Append(HtmlText.Escape(ReportNumbers.ConvertMeters(warning, unit))).Append("</li>\n");
+            html.Append("</ul>\n");
+        }
     }
 
     internal static void Settings(StringBuilder html, int number, ReportInput input)

@@ -24,6 +24,10 @@ internal static class EventClassifier
     /// a change of line that runs on past the record.</summary>
     internal const double TerminationTailRiseTimes = 10;
 
+    /// <summary>Relative distance of a shunt resistance from the line impedance within which it is read as a tap into a
+    /// matched branch (5 %: a terminated branch's resistor and cable Z₀ each hold a few per cent; common practice).</summary>
+    internal const double MatchedBranchRelativeTolerance = 0.05;
+
     /// <summary>What the classifier is told about one event.</summary>
     /// <param name="Element">Its kind in the model.</param>
     /// <param name="Value">Its size (Ω after a boundary, F, H, Ω, s).</param>
@@ -59,6 +63,10 @@ internal static class EventClassifier
             RunModelElement.ShuntCapacitor => (EventKind.Capacitive, e.PeakSignatureVolts / e.IncidentLevelVolts, null, e.Value),
             RunModelElement.SeriesInductor => (EventKind.Inductive, e.PeakSignatureVolts / e.IncidentLevelVolts, null, e.Value),
             // Shunt R across Z: ρ = −Z/(2R + Z); series R: ρ = R/(R + 2Z) (DESIGN.md §2).
+            // A shunt of R = Z is a tap whose other branch is matched: the two cannot be told apart on a step trace, and a
+            // tap is by far the likelier cause of exactly Z₀ across the line.
+            RunModelElement.ShuntResistor when Math.Abs(e.Value / z - 1) <= MatchedBranchRelativeTolerance
+                => (EventKind.Tap, -z / (2 * e.Value + z), null, e.Value),
             RunModelElement.ShuntResistor => (EventKind.PartialShort, -z / (2 * e.Value + z), null, e.Value),
             RunModelElement.SeriesResistor => (EventKind.SeriesResistance, e.Value / (e.Value + 2 * z), null, e.Value),
             // Two equal lines in parallel, Z/2 on a line of Z: ρ = −1/3 (DESIGN.md §2).

@@ -129,9 +129,23 @@ public static class Locator
             double d = v * t / 2;
             double sigmaD = Math.Sqrt(Math.Pow(v * sigmaT / 2, 2) + Math.Pow(d * options.VelocityFactorRelativeSigma, 2));
             located.Add(new LocatedEvent(d, sigmaD, kind, rho, impedance, value, confidence, t));
-            if (e.Element == RunModelElement.Tap)
+            if (e.Element == RunModelElement.ShuntResistor && kind == EventKind.Tap)
                 warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                    $"tap at {d:0.###} m: its branch is about {v * e.Value / 2:0.###} m long (open-ended, assumed of the same cable)."));
+                    $"tap at {d:0.###} m: it reflects like {e.Value:0.#} Ω across the line, i.e. a branch into a matched load; if no tap is fitted there, it is a leak of that resistance."));
+            if (e.Element == RunModelElement.Tap)
+            {
+                // The branch's open end is an event of its own, on the branch: d_tap + v·τ_branch/2 from the connector.
+                double tEnd = t + e.Value;
+                double r = e.Value / context.ReferenceRiseSeconds;
+                double varianceEnd = covariance[tIndex, tIndex] + r * r * covariance[tIndex + 1, tIndex + 1] + 2 * r * covariance[tIndex, tIndex + 1];
+                double sigmaTEnd = Math.Sqrt(Math.Max(0, varianceEnd)) * context.ReferenceRiseSeconds;
+                double dEnd = v * tEnd / 2;
+                double sigmaDEnd = Math.Sqrt(Math.Pow(v * sigmaTEnd / 2, 2) + Math.Pow(dEnd * options.VelocityFactorRelativeSigma, 2));
+                if (e.RoundTripSeconds + e.Value <= recordEnd)
+                    located.Add(new LocatedEvent(dEnd, sigmaDEnd, EventKind.Open, 1.0, null, null, confidence, tEnd));
+                warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"tap at {d:0.###} m: the open end at {dEnd:0.###} m is the end of its branch ({v * e.Value / 2:0.###} m long, assumed of the same cable), not of the main line."));
+            }
         }
 
         double rms = Math.Sqrt(fit.ResidualSumOfSquares / data.Samples.Length);

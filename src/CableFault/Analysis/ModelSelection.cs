@@ -31,6 +31,10 @@ internal static class ModelSelection
     /// much smaller than 1 until the rest of the model is right.</summary>
     private const double EndTrialReflection = 0.3;
 
+    /// <summary>Peak signature over the noise RMS below which an event is dropped: a 3σ excursion is the least a
+    /// detection can rest on (common practice).</summary>
+    internal const double MinimumSignatureSignalToNoise = 3;
+
     /// <summary>Most split rounds (each may split one event).</summary>
     private const int MaximumSplitRounds = 4;
 
@@ -128,19 +132,23 @@ internal static class ModelSelection
             {
                 var list = m.Events.ToList();
                 list[i] = Resistive(m, i);
-                if (TryAccept(m.WithEvents(list), simpler: true, i)) continue;
+                var variants = new List<RunModel> { m.WithEvents(list) };
                 if (rho > -0.6 && rho < -0.1)
                 {
-                    // A tap: the drop and a later rise (the branch end's echo) become one junction with an open branch.
+                    // A tap: the drop and a later rise or open (the branch end's echo) become one junction with an open
+                    // branch. A shunt resistor of Z followed by an open reflects exactly like a tap whose other branch is
+                    // matched, with one parameter fewer: the criterion prefers the tap, the usual way such a trace arises.
                     foreach (int j in Enumerable.Range(i + 1, m.Events.Count - i - 1)
-                                 .Where(j => m.Events[j].Element == RunModelElement.Boundary && LocalReflection(m, j) > 0).Take(3))
+                                 .Where(j => m.Events[j].Element == RunModelElement.Open
+                                             || (m.Events[j].Element == RunModelElement.Boundary && LocalReflection(m, j) > 0)).Take(3))
                     {
                         var tapList = m.Events.ToList();
                         tapList[i] = e with { Element = RunModelElement.Tap, Value = m.Events[j].RoundTripSeconds - e.RoundTripSeconds };
                         tapList.RemoveAt(j);
-                        if (TryAccept(m.WithEvents(tapList), simpler: true, i, j - 1)) break;
+                        variants.Add(m.WithEvents(tapList));
                     }
                 }
+                if (TryBest(variants, simpler: true, i)) continue;
             }
             else
             {
@@ -184,6 +192,7 @@ internal static class ModelSelection
         }
 
         Prune();
+        TruncateAtTotalReflection();
         if (trials > 0)
         {
             // Polish: every parameter free, warm started from the selected model.
@@ -220,11 +229,55 @@ internal static class ModelSelection
             }
         }
 
+        // Nothing on the main line lies beyond a total reflection: what the model put there is re-reflection and loss
+        // tail. A boundary to |ρ| ≥ the classifier's end threshold becomes an exact open or short and everything after
+        // it goes, whatever the criterion says (a wrong loss model can make later junk pay for itself).
+        void TruncateAtTotalReflection()
+        {
+            var m = best.Model;
+            int at = -1;
+            for (int i = 0; i < m.Events.Count && at < 0; i++)
+            {
+                var e = m.Events[i];
+                if (e.EndsRun || (e.Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, i)) >= EventClassifier.EndReflection))
+                    at = i;
+            }
+            double recordEnd = data.TimeAt(data.Samples.Length - 1) - m.TimeOffsetSeconds;
+            int beyondRecord = Enumerable.Range(0, m.Events.Count).Where(i => m.Events[i].RoundTripSeconds > recordEnd).DefaultIfEmpty(-1).First();
+            if (at < 0 && beyondRecord < 0) return;
+            var list = m.Events.ToList();
+            if (at >= 0)
+            {
+                var e = m.Events[at];
+                if (!e.EndsRun) list[at] = e with { Element = LocalReflection(m, at) > 0 ? RunModelElement.Open : RunModelElement.Short, Value = double.NaN };
+                list.RemoveRange(at + 1, list.Count - at - 1);
+            }
+            list.RemoveAll(e => e.RoundTripSeconds > recordEnd);
+            if (list.Count == m.Events.Count && list.Zip(m.Events).All(p => p.First == p.Second)) return;
+            best = ModelFitter.Fit(m.WithEvents(list), data, variance, cancellation: cancellation);
+            bestBic = Bic(best);
+            trials++;
+        }
+
         void Prune()
         {
             while (best.Model.Events.Count > 0)
             {
                 var ev = EventEvidence(best, data, variance, logN, effectiveRiseSeconds);
+                // An event whose own signature is lost in the noise is no detection, whatever it does to the criterion
+                // (it is soaking up misfit elsewhere): it goes first, unconditionally.
+                double sigma = Math.Sqrt(variance);
+                int faint = Enumerable.Range(0, ev.Count).Where(k => Math.Abs(ev[k].PeakSignatureVolts) < MinimumSignatureSignalToNoise * sigma)
+                    .DefaultIfEmpty(-1).MinBy(k => k < 0 ? 0 : Math.Abs(ev[k].PeakSignatureVolts));
+                if (faint >= 0)
+                {
+                    var reduced = best.Model.Events.Where((_, k) => k != faint);
+                    var refit = ModelFitter.Fit(best.Model.WithEvents(reduced), data, variance, cancellation: cancellation);
+                    trials++;
+                    best = refit;
+                    bestBic = Bic(refit);
+                    continue;
+                }
                 int weakest = Enumerable.Range(0, ev.Count).MinBy(k => ev[k].DeltaBic);
                 if (ev[weakest].DeltaBic >= EvidenceMargin) break;
                 var list = best.Model.Events.ToList();

@@ -45,9 +45,9 @@ public static class CableTypeJson
     internal static CableType? ReadOne(JsonElement cable, string path, JsonProblems problems, string? defaultDesignation = null)
     {
         string? designation = problems.Text(cable, "designation", path, required: defaultDesignation is null) ?? defaultDesignation;
-        double? z0 = problems.Number(cable, "z0_ohms", path, required: true, min: 0, exclusiveMin: true);
-        double? vf = problems.Number(cable, "vf", path, required: true, min: 0, max: 1, exclusiveMin: true);
-        double dc = problems.Number(cable, "dc_loop_ohms_per_m", path, required: false, min: 0) ?? 0;
+        double? z0 = problems.Number(cable, "z0_ohms", path, required: true, min: PlausibleRanges.MinimumImpedanceOhms, max: PlausibleRanges.MaximumImpedanceOhms);
+        double? vf = problems.Number(cable, "vf", path, required: true, min: PlausibleRanges.MinimumVelocityFactor, max: 1);
+        double dc = problems.Number(cable, "dc_loop_ohms_per_m", path, required: false, min: 0, max: PlausibleRanges.MaximumDcLoopOhmsPerMeter) ?? 0;
         var loss = ReadLoss(cable, path, problems, dc);
         if (designation is null || z0 is null || vf is null || loss is null) return null;
         return new CableType(designation, problems.Text(cable, "description", path, false) ?? "user-defined",
@@ -70,8 +70,8 @@ public static class CableTypeJson
         {
             string at = $"{path}.loss[{i++}]";
             if (point.ValueKind != JsonValueKind.Object) { problems.Add(at, "expected an object with mhz and db_per_100m"); continue; }
-            double? mhz = problems.Number(point, "mhz", at, true, 0, exclusiveMin: true);
-            double? db = problems.Number(point, "db_per_100m", at, true, 0);
+            double? mhz = problems.Number(point, "mhz", at, true, 0, PlausibleRanges.MaximumLossFrequencyMhz, exclusiveMin: true);
+            double? db = problems.Number(point, "db_per_100m", at, true, 0, PlausibleRanges.MaximumAttenuationDbPer100m);
             if (mhz is not null && db is not null) points.Add((mhz.Value, db.Value));
         }
         if (points.Count != loss.GetArrayLength()) return null;

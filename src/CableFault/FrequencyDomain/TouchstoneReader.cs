@@ -30,6 +30,14 @@ public static class TouchstoneReader
     /// <summary>Default size limit, characters (64 Mi): about two million one-port points, far beyond any sweep.</summary>
     public const long DefaultMaximumCharacters = 64L * 1024 * 1024;
 
+    /// <summary>Highest frequency accepted, Hz (10 THz): far above any network analyser, so a larger value is a unit slip
+    /// or a corrupt number, and it keeps the arithmetic of the transform finite.</summary>
+    public const double MaximumFrequencyHz = 1e13;
+
+    /// <summary>Largest |S11| accepted: 10. A passive one-port has |S11| ≤ 1; calibration error can push a point a little
+    /// above, while a value of 10 or more means a wrong format (dB read as magnitude) or a corrupt number.</summary>
+    public const double MaximumReflectionMagnitude = 10;
+
     /// <summary>Reads S11. Throws <see cref="InputException"/> (one line: source, line, problem, remedy) on malformed input.</summary>
     /// <param name="reader">The file's text.</param>
     /// <param name="sourceName">The name used in messages; its extension (<c>.s1p</c>/<c>.s2p</c>) gives a 1.x file's port count.</param>
@@ -67,6 +75,8 @@ public static class TouchstoneReader
             string? raw;
             while (_section != Section.Ended && (raw = lines.ReadLine()) is not null)
             {
+                if (raw.Contains('\0'))
+                    throw Error("the line holds NUL characters, so this is binary data or UTF-16 text without a byte-order mark; save the file as plain text (UTF-8 or ASCII).");
                 string content = StripComment(raw).Trim();
                 if (content.Length == 0) continue;
                 if (content[0] == '[') Keyword(content);
@@ -272,12 +282,17 @@ public static class TouchstoneReader
         {
             var options = _options!;
             double frequencyHz = _record[0] * options.FrequencyScale;
+            if (!double.IsFinite(frequencyHz) || frequencyHz > MaximumFrequencyHz)
+                throw Error($"frequency {_record[0]} {options.FrequencyUnit} is beyond {MaximumFrequencyHz:G3} Hz; check the option line's unit and the number.");
             if (frequencyHz < 0) throw Error($"frequency {_record[0]} {options.FrequencyUnit} is negative; frequencies must be ≥ 0.");
             if (_frequencies.Count > 0 && !(frequencyHz > _frequencies[^1]))
                 throw Error($"frequency {_record[0]} {options.FrequencyUnit} is not above the previous one ({_frequencies[^1] / options.FrequencyScale} {options.FrequencyUnit}); frequencies must increase, so sort or remove the repeated point.");
             // S11 comes first in every layout: 1.x (S11 S21 S12 S22), 2.0 with either data order, full or triangular.
+            var value = ToComplex(_record[1], _record[2], options.Format);
+            if (options.Parameter == NetworkParameterKind.S && !(value.Magnitude <= MaximumReflectionMagnitude))
+                throw Error($"|S11| = {value.Magnitude:G3} at {_record[0]} {options.FrequencyUnit}; a cable run reflects at most about 1, so check the format (RI, MA or DB) on the option line and the number.");
             _frequencies.Add(frequencyHz);
-            _values.Add(ToComplex(_record[1], _record[2], options.Format));
+            _values.Add(value);
             _record.Clear();
         }
 

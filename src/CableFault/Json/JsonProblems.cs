@@ -14,6 +14,27 @@ internal sealed class JsonProblems
 
     internal void Add(string path, string problem) => _problems.Add($"{path}: {problem}");
 
+    /// <summary>Deepest nesting of arrays and objects accepted (the System.Text.Json default is 64; junctions need more).</summary>
+    internal const int MaximumDepth = 256;
+
+    /// <summary>Refuses UTF-16/UTF-32 and binary input with a message that says so, instead of "not valid JSON at column 1".</summary>
+    private static void CheckEncoding(ReadOnlySpan<byte> bytes, string sourceName)
+    {
+        if (bytes.StartsWith(new byte[] { 0xFF, 0xFE }) || bytes.StartsWith(new byte[] { 0xFE, 0xFF }))
+            throw new InputException($"{sourceName}: the file is UTF-16 (or UTF-32) text; save it as UTF-8");
+        int nul = bytes[..Math.Min(bytes.Length, 4096)].IndexOf((byte)0);
+        if (nul >= 0)
+            throw new InputException($"{sourceName}: byte {nul + 1} is NUL, so this is binary data or UTF-16 without a byte-order mark, not JSON text; save the file as UTF-8 text");
+        if (!System.Text.Unicode.Utf8.IsValid(bytes))
+        {
+            // Strings with broken UTF-8 would otherwise fail later, deep inside the JSON library, with no line.
+            int at = 0;
+            while (at < bytes.Length && System.Text.Rune.DecodeFromUtf8(bytes[at..], out _, out int used) == System.Buffers.OperationStatus.Done) at += used;
+            int line = 1 + bytes[..at].Count((byte)'\n');
+            throw new InputException($"{sourceName}: line {line}: byte {at + 1} is not valid UTF-8; save the file as UTF-8 text");
+        }
+    }
+
     internal static JsonDocument Parse(Stream stream, string sourceName, long maximumBytes)
     {
         if (stream.CanSeek && stream.Length > maximumBytes)
@@ -30,13 +51,19 @@ internal sealed class JsonProblems
                 limited.Write(buffer, 0, read);
             }
             if (limited.Length == 0) throw new InputException($"{sourceName}: file is empty; expected a JSON object");
+            CheckEncoding(limited.GetBuffer().AsSpan(0, (int)limited.Length), sourceName);
             limited.Position = 0;
             return JsonDocument.Parse(limited, new JsonDocumentOptions
             {
                 AllowTrailingCommas = true,
                 CommentHandling = JsonCommentHandling.Skip,
-                MaxDepth = 256,
+                MaxDepth = MaximumDepth,
             });
+        }
+        catch (JsonException e) when (e.Message.Contains("depth", StringComparison.OrdinalIgnoreCase))
+        {
+            string where = e.LineNumber is long line ? $"line {line + 1}" : "somewhere";
+            throw new InputException($"{sourceName}: JSON nested more than {MaximumDepth} levels deep at {where}; a run description needs only a few levels, so check the brackets", e);
         }
         catch (JsonException e)
         {

@@ -27,6 +27,18 @@ public static class NetworkJson
     /// <summary>Most elements accepted in one network (a guard against generated nonsense).</summary>
     public const int MaximumElements = 10_000;
 
+    /// <summary>
+    /// Longest segment accepted, m: 100 km. Reflectometer runs are metres to tens of kilometres; a longer segment is a
+    /// unit slip or a corrupt number, and would ask the simulator for a record of impossible size.
+    /// </summary>
+    public const double MaximumSegmentLengthMeters = 100_000;
+
+    /// <summary>
+    /// Longest one-way delay accepted from the instrument to the farthest end, s: 1 ms (about 200 km of cable at VF
+    /// 0.66). Bounds the record the simulator has to compute however many segments add up.
+    /// </summary>
+    public const double MaximumDelaySeconds = 1e-3;
+
     private static readonly string[] RootFields = ["name", "cables", "run", "description"];
 
     /// <summary>Reads and validates a network; every problem is reported at once as one <see cref="InputException"/>.</summary>
@@ -67,6 +79,12 @@ public static class NetworkJson
         string name = problems.Text(root, "name", "$", false) ?? "";
         problems.ThrowIfAny(sourceName);
         var network = new CableNetwork(branch!, name);
+        double delay = network.LongestDelaySeconds();
+        if (!(delay <= MaximumDelaySeconds))
+        {
+            problems.Add("run", $"the longest path is {delay * 1e6:G4} µs of cable one way, beyond the {MaximumDelaySeconds * 1e6:G3} µs limit (about 200 km); check the lengths and their units");
+            problems.ThrowIfAny(sourceName);
+        }
         var structural = network.Problems();
         if (structural.Count > 0)
         {
@@ -142,10 +160,10 @@ public static class NetworkJson
         NetworkElement? element = type switch
         {
             "segment" => ReadSegment(item, at, state),
-            "shunt_c" => problems.Number(item, "capacitance_pf", at, true, 0, exclusiveMin: true) is double pf ? new ShuntCapacitor(pf * 1e-12) : null,
-            "series_l" => problems.Number(item, "inductance_nh", at, true, 0, exclusiveMin: true) is double nh ? new SeriesInductor(nh * 1e-9) : null,
-            "shunt_r" => problems.Number(item, "resistance_ohms", at, true, 0, exclusiveMin: true) is double r ? new ShuntResistor(r) : null,
-            "series_r" => problems.Number(item, "resistance_ohms", at, true, 0, exclusiveMin: true) is double r2 ? new SeriesResistor(r2) : null,
+            "shunt_c" => problems.Number(item, "capacitance_pf", at, true, PlausibleRanges.MinimumCapacitancePf, PlausibleRanges.MaximumCapacitancePf) is double pf ? new ShuntCapacitor(pf * 1e-12) : null,
+            "series_l" => problems.Number(item, "inductance_nh", at, true, PlausibleRanges.MinimumInductanceNh, PlausibleRanges.MaximumInductanceNh) is double nh ? new SeriesInductor(nh * 1e-9) : null,
+            "shunt_r" => problems.Number(item, "resistance_ohms", at, true, PlausibleRanges.MinimumResistanceOhms, PlausibleRanges.MaximumResistanceOhms) is double r ? new ShuntResistor(r) : null,
+            "series_r" => problems.Number(item, "resistance_ohms", at, true, PlausibleRanges.MinimumResistanceOhms, PlausibleRanges.MaximumResistanceOhms) is double r2 ? new SeriesResistor(r2) : null,
             "junction" => ReadJunction(item, at, state, depth),
             "end" => ReadEnd(item, at, problems),
             _ => null,
@@ -156,8 +174,8 @@ public static class NetworkJson
     private static CableSegment? ReadSegment(JsonElement item, string at, ReadState state)
     {
         var problems = state.Problems;
-        double? meters = problems.Number(item, "length_m", at, false, 0, exclusiveMin: true);
-        double? feet = problems.Number(item, "length_ft", at, false, 0, exclusiveMin: true);
+        double? meters = problems.Number(item, "length_m", at, false, 0, MaximumSegmentLengthMeters, exclusiveMin: true);
+        double? feet = problems.Number(item, "length_ft", at, false, 0, Math.Floor(MaximumSegmentLengthMeters / PhysicalConstants.MetersPerFoot), exclusiveMin: true);
         if (meters is null && feet is null && !item.TryGetProperty("length_m", out _) && !item.TryGetProperty("length_ft", out _))
             problems.Add(at, "'length_m' (or 'length_ft') is missing");
         if (meters is not null && feet is not null) problems.Add(at, "give length_m or length_ft, not both");
@@ -208,10 +226,10 @@ public static class NetworkJson
             case "short": return RunEnd.Short;
             case "matched": return RunEnd.Matched;
             case "resistor":
-                return problems.Number(item, "resistance_ohms", at, true, 0, exclusiveMin: true) is double r ? RunEnd.Resistor(r) : null;
+                return problems.Number(item, "resistance_ohms", at, true, PlausibleRanges.MinimumResistanceOhms, PlausibleRanges.MaximumResistanceOhms) is double r ? RunEnd.Resistor(r) : null;
             case "rc":
-                double? rr = problems.Number(item, "resistance_ohms", at, true, 0, exclusiveMin: true);
-                double? pf = problems.Number(item, "capacitance_pf", at, true, 0, exclusiveMin: true);
+                double? rr = problems.Number(item, "resistance_ohms", at, true, PlausibleRanges.MinimumResistanceOhms, PlausibleRanges.MaximumResistanceOhms);
+                double? pf = problems.Number(item, "capacitance_pf", at, true, PlausibleRanges.MinimumCapacitancePf, PlausibleRanges.MaximumCapacitancePf);
                 return rr is null || pf is null ? null : new RunEnd(EndKind.ResistorParallelCapacitor, rr.Value, pf.Value * 1e-12);
             default:
                 problems.Add($"{at}.end", $"unknown end '{kind}'; expected open, short, matched, resistor or rc");

@@ -100,7 +100,7 @@ public static class ForwardModel
         long fftLength = 1;
         while (fftLength < needed) fftLength <<= 1;
         if (fftLength > (1L << 27))
-            throw new ArgumentException($"The record needs an FFT of {fftLength} points; reduce the sample count or coarsen the sample interval relative to the rise time.");
+            throw new InputException($"simulate settings: the record needs an internal FFT of {fftLength} points, over the {1L << 27} limit; shorten the record (--duration-ns, --samples) or lengthen --rise-time-ns");
         int m = (int)fftLength;
         double period = m * dt;
         // Wrap-around is suppressed by e^(−σT) while rounding errors grow by e^(σ·t) up to the record's end t_rec;

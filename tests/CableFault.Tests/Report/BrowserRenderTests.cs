@@ -24,7 +24,7 @@ public class BrowserRenderTests
 
     private static string Html(DistanceUnit unit) => HtmlReport.Render(ReportFixtures.Input(unit,
         new JobSheet(ExpectedLengthMeters: ReportFixtures.OpenMeters, Instrument: [new("Instrument", "bench reflectometer 2")]),
-        new RepairCheckPart("before.csv", "not in this build")));
+        new RepairCheckPart("before.csv", ReportFixtures.Comparison)));
 
     [ChromiumTheory]
     // Chromium prints on Letter unless the page asks otherwise; the report asks for "auto" (the reader's paper), so

@@ -39,7 +39,8 @@ public class ReportCommandTests : IDisposable
         Assert.Contains("From Option", document.QuerySelector(".job")!.TextContent);
         // 59.055 ft is 18.000 m: the open at the recorded length is the run's end.
         Assert.StartsWith("The run ends as recorded: open at 59", document.QuerySelector(".summary .headline")!.TextContent);
-        Assert.Contains("Comparison not available", document.QuerySelector("#repair")!.ParentElement!.TextContent);
+        // The trace against itself: the repair check runs and passes.
+        Assert.Equal("Verdict: PASS — the run matches its baseline within the tolerances below.", document.QuerySelector(".verdict")!.TextContent);
         Assert.Single(Directory.GetFiles(_folder, "*report.html*"));
 
         File.WriteAllText(job, """{ "run_id": 7, "colour": "blue" }""");

@@ -2,6 +2,7 @@ using AngleSharp.Dom;
 using AngleSharp.Html.Parser;
 using CableFault.Analysis;
 using CableFault.Cables;
+using CableFault.Comparison;
 using CableFault.Networks;
 using CableFault.Reporting;
 using CableFault.Reporting.Html;
@@ -23,19 +24,30 @@ internal static class ReportFixtures
     /// <summary>Run ID with markup in it: must show as text.</summary>
     public const string HostileRunId = "<script>alert(1)</script> & \"QB-7\"";
 
-    private static readonly Lazy<Trace> LazyTrace = new(() =>
+    private static Trace Simulate(bool wetSection, int seed)
     {
         var line = new CableMedium(50, VelocityFactor, null);
-        var wet = new CableMedium(35, VelocityFactor, null);
+        var middle = new CableMedium(wetSection ? 35 : 50, VelocityFactor, null);
         var network = new CableNetwork(new NetworkBranch([
-            new CableSegment(DropMeters, line), new CableSegment(RiseMeters - DropMeters, wet),
+            new CableSegment(DropMeters, line), new CableSegment(RiseMeters - DropMeters, middle),
             new CableSegment(OpenMeters - RiseMeters, line), RunEnd.Open]), "report test run");
-        var settings = InstrumentSettings.DefaultFor(network, 1e-9) with { NoiseRmsVolts = 1e-3, NoiseSeed = 7 };
+        var settings = InstrumentSettings.DefaultFor(network, 1e-9) with { NoiseRmsVolts = 1e-3, NoiseSeed = seed };
         return ForwardModel.Simulate(network, settings)
             .WithMetadata("vf", "0.66").WithMetadata("z0", "50")
             .WithMetadata("site", "Test yard 3").WithMetadata("technician", "A. Tester").WithMetadata("date", "2031-04-05T09:15")
             .WithMetadata("run", HostileRunId);
-    });
+    }
+
+    private static readonly Lazy<Trace> LazyTrace = new(() => Simulate(wetSection: true, seed: 7));
+
+    /// <summary>The same run before the water got in: 40 m of sound 50 Ω line into the open end.</summary>
+    private static readonly Lazy<Trace> LazyBaseline = new(() => Simulate(wetSection: false, seed: 8));
+
+    private static readonly Lazy<CompareResult> LazyComparison = new(() =>
+        RepairCheck.Compare(LazyBaseline.Value, Trace, new RepairCheckOptions { VelocityFactor = VelocityFactor, ImpedanceOhms = 50 }));
+
+    /// <summary>The repair check of the wet run against its sound baseline.</summary>
+    public static CompareResult Comparison => LazyComparison.Value;
 
     private static readonly Lazy<(LocateResult Result, CableSettings Settings)> LazyLocated = new(() =>
     {

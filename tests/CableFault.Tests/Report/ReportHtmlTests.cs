@@ -19,6 +19,10 @@ public class ReportHtmlTests
     /// a noisy, sampled edge (125 ps samples, 1 mV noise) lands within a few per cent.</summary>
     private const double RiseTolerance = 0.05;
 
+    /// <summary>How close a listed change must be to the boundary that made it: the located events sit within a few
+    /// centimetres of the truth here (0.5 m σ is almost all VF uncertainty, which both traces share).</summary>
+    private const double ChangeWindowMeters = 0.5;
+
     private static IDocument Render(DistanceUnit unit, JobSheet? job = null, RepairCheckPart? repair = null) =>
         ReportFixtures.Parse(HtmlReport.Render(ReportFixtures.Input(unit, job, repair)));
 
@@ -156,11 +160,25 @@ public class ReportHtmlTests
     [Fact]
     public void MissingRepairCheckSaysSo()
     {
-        var document = Render(DistanceUnit.Meters, repair: new RepairCheckPart("before.csv", "not in this build"));
+        var document = Render(DistanceUnit.Meters, repair: new RepairCheckPart("before.csv", null, "not in this build"));
         var section = document.QuerySelector("#repair")!;
         Assert.Contains("not available", document.Body!.TextContent);
         Assert.Contains("before.csv", document.Body!.TextContent);
         Assert.Null(Render(DistanceUnit.Meters).QuerySelector("#repair"));
         Assert.NotNull(section);
+    }
+
+    [Fact]
+    public void RepairCheckShowsTheVerdictAndTheChangesWhereTheWaterGotIn()
+    {
+        var document = Render(DistanceUnit.Meters, repair: new RepairCheckPart("before.csv", ReportFixtures.Comparison));
+        Assert.Equal("Verdict: FAIL — the run differs from its baseline beyond the tolerances below.", document.QuerySelector(".verdict")!.TextContent);
+        Assert.StartsWith("Repair check: FAIL.", document.QuerySelector(".summary .repair-line")!.TextContent);
+        var failing = document.QuerySelectorAll("table.changes tbody tr.attention")
+            .Select(r => double.Parse(r.QuerySelectorAll("td")[1].TextContent, CultureInfo.InvariantCulture)).ToList();
+        // The baseline has no boundary at 25 m or 28 m (the network built in the fixture): both are new there.
+        Assert.Contains(failing, d => Math.Abs(d - ReportFixtures.DropMeters) < ChangeWindowMeters);
+        Assert.Contains(failing, d => Math.Abs(d - ReportFixtures.RiseMeters) < ChangeWindowMeters);
+        Assert.Equal(2, document.QuerySelectorAll("figure img").Length);
     }
 }

@@ -40,6 +40,7 @@ public class TraceCsvCorpusTests
         { "metadata-z0-negative.csv", "line 1", "metadata z0='-50' is not a positive number" },
         { "utf16-no-bom.csv", "line 1", "NUL" },
         { "binary-garbage.csv", "line 3", "NUL" },
+        { "bom-crlf-bad-value.csv", "line 4", "'0.1x' in column 'volts' is not a number" },
     };
 
     [Theory]

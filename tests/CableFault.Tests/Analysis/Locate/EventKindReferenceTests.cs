@@ -137,6 +137,9 @@ public class EventKindReferenceTests
         Assert.InRange(tap.Reflection, -1.0 / 3 - ReflectionTolerance, -1.0 / 3 + ReflectionTolerance);
         AssertDistance(tap, 12);
         Assert.Contains(result.Events, e => e.Kind == EventKind.Open && Math.Abs(e.DistanceMeters - 32) <= DistanceTolerance(32));
+        // The branch's open end is reported (12 + 6 m along the branch); its re-reflections are not events of their own.
+        Assert.Contains(result.Events, e => e.Kind == EventKind.Open && Math.Abs(e.DistanceMeters - 18) <= DistanceTolerance(18));
+        Assert.Equal(3, result.Events.Count);
     }
 
     [Fact]

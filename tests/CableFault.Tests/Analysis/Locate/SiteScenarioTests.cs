@@ -1,0 +1,111 @@
+using CableFault.Analysis;
+using CableFault.Cables;
+using CableFault.Networks;
+using CableFault.Simulation;
+using CableFault.Traces;
+
+namespace CableFault.Tests.Analysis.Locate;
+
+/// <summary>
+/// Whole runs as a site would record them (lossy built-in cables, 0.5 ns rise, 1 mV noise, long record with the
+/// far end's re-reflections in it), built here so the network is the ground truth. Each checks that the real events
+/// are found AND that nothing else is reported: re-reflections, loss tails and what follows a total reflection are
+/// not events.
+/// </summary>
+public class SiteScenarioTests
+{
+    /// <summary>Instrument rise of the site scenarios, s (a typical sampling-head step).</summary>
+    private const double SiteRiseSeconds = 0.5e-9;
+
+    /// <summary>Noise of the site scenarios, V RMS on a 1 V step.</summary>
+    private const double SiteNoiseVolts = 1e-3;
+
+    /// <summary>Distance tolerance where the fitted model is the true one (uniform cable up to the event), m: a few
+    /// centimetres is what a 0.5 ns edge at 1 mV noise pins down.</summary>
+    private const double DistanceToleranceMeters = 0.05;
+
+    /// <summary>Distance tolerance past a section of another VF and loss, m: the model assumes one VF and loss for the
+    /// whole run, so the wet section's own delay and loss shift what follows by a few centimetres.</summary>
+    private const double PastForeignSectionToleranceMeters = 0.15;
+
+    private static Trace SiteTrace(CableNetwork network, double sourceOhms, int seed)
+    {
+        var settings = InstrumentSettings.DefaultFor(network, SiteRiseSeconds) with
+        {
+            NoiseRmsVolts = SiteNoiseVolts,
+            NoiseSeed = seed,
+            SourceImpedanceOhms = sourceOhms,
+        };
+        return ForwardModel.Simulate(network, settings);
+    }
+
+    private static string Listing(LocateResult r) =>
+        string.Join("; ", r.Events.Select(e => $"{e.Kind} at {e.DistanceMeters:0.###} m (ρ {e.Reflection:0.###})"));
+
+    private static void AssertAt(LocatedEvent e, double meters, double tolerance, LocateResult r) =>
+        Assert.True(Math.Abs(e.DistanceMeters - meters) <= tolerance,
+            $"{e.Kind} at {e.DistanceMeters:0.###} m, expected {meters} m ± {tolerance} m; all: {Listing(r)}");
+
+    [Fact]
+    public void WetSectionIsOneDropAndOneRiseAndNothingLiesBeyondTheOpenEnd()
+    {
+        var rg213 = CableLibrary.BuiltIn.Get("RG-213");
+        // A 0.6 m wet section: 36 Ω, VF 0.60, 25 dB/100 m at 100 MHz (invented; a wet foam dielectric lowers Z and VF).
+        var wet = new CableMedium(36, 0.60, CableLossModel.FromDatasheet(25, 100e6));
+        var network = new CableNetwork(new NetworkBranch(
+            new CableSegment(12.0, rg213.Medium), new SeriesInductor(4e-9), new CableSegment(15.3, rg213.Medium),
+            new CableSegment(0.6, wet), new CableSegment(14.6, rg213.Medium), RunEnd.Open));
+        var options = new LocateOptions
+        {
+            VelocityFactor = rg213.VelocityFactor, ImpedanceOhms = 50, SourceImpedanceOhms = 50, Loss = rg213.Loss,
+        };
+        var result = Locator.Locate(SiteTrace(network, 50, seed: 12), options);
+
+        // On the VF 0.66 scale the wet section's far side lies at 27.3 + 0.6·0.66/0.60 = 27.96 m and the open end
+        // 0.06 m further out than its 42.5 m of cable.
+        double wetFar = 27.3 + 0.6 * rg213.VelocityFactor / 0.60;
+        double openAt = wetFar + 14.6;
+        Assert.True(result.Events.Count == 4, $"expected 4 events, found {result.Events.Count}: {Listing(result)}");
+        var e = result.Events;
+        Assert.Equal(EventKind.Inductive, e[0].Kind);
+        AssertAt(e[0], 12.0, DistanceToleranceMeters, result);
+        Assert.Equal(EventKind.ImpedanceDrop, e[1].Kind);
+        AssertAt(e[1], 27.3, DistanceToleranceMeters, result);
+        // ρ = (36 − 50)/(36 + 50) = −0.163 (Pozar, Microwave Engineering, 4th ed., eq. 2.35); the section's loss and
+        // the edge's spread let the fitted step read a little less.
+        Assert.InRange(e[1].Reflection, -0.20, -0.12);
+        Assert.Equal(EventKind.ImpedanceRise, e[2].Kind);
+        AssertAt(e[2], wetFar, PastForeignSectionToleranceMeters, result);
+        Assert.Equal(EventKind.Open, e[3].Kind);
+        AssertAt(e[3], openAt, PastForeignSectionToleranceMeters, result);
+    }
+
+    [Fact]
+    public void TwoWayTapIsOneTapWithItsOpenBranchEndAndNothingElse()
+    {
+        var rg6 = CableLibrary.BuiltIn.Get("RG-6");
+        var network = new CableNetwork(new NetworkBranch(
+            new CableSegment(18.0, rg6.Medium),
+            new Junction([
+                new NetworkBranch(new CableSegment(12.0, rg6.Medium), RunEnd.Resistor(75)),
+                new NetworkBranch(new CableSegment(7.0, rg6.Medium), RunEnd.Open),
+            ])));
+        var options = new LocateOptions
+        {
+            VelocityFactor = rg6.VelocityFactor, ImpedanceOhms = 75, SourceImpedanceOhms = 75, Loss = rg6.Loss,
+        };
+        var result = Locator.Locate(SiteTrace(network, 75, seed: 21), options);
+
+        Assert.True(result.Events.Count == 2, $"expected 2 events, found {result.Events.Count}: {Listing(result)}");
+        var tap = result.Events[0];
+        Assert.Equal(EventKind.Tap, tap.Kind);
+        AssertAt(tap, 18.0, DistanceToleranceMeters, result);
+        // Three equal lines meet: Z₀/2 seen from the first, ρ = (Z₀/2 − Z₀)/(Z₀/2 + Z₀) = −1/3 (Pozar, 4th ed., eq. 2.35).
+        Assert.InRange(tap.Reflection, -1.0 / 3 - 0.02, -1.0 / 3 + 0.02);
+        var branchEnd = result.Events[1];
+        Assert.Equal(EventKind.Open, branchEnd.Kind);
+        AssertAt(branchEnd, 25.0, DistanceToleranceMeters, result);
+        // The far end lies well inside the record: no warning that it may lie beyond it.
+        Assert.DoesNotContain(result.Warnings, w => w.Contains("beyond", StringComparison.OrdinalIgnoreCase));
+    }
+}
