@@ -10,6 +10,9 @@ public static class FigureRenderer
 {
     private const int LeftPadding = 90, RightPadding = 30;
 
+    /// <summary>Horizontal room one rotated label needs, px (an 11 pt line plus a gap).</summary>
+    private const double LabelSpacingPixels = 17;
+
     /// <summary>PNG image of the figure.</summary>
     public static byte[] ToPng(Figure figure)
     {
@@ -95,7 +98,7 @@ public static class FigureRenderer
                 var limits = plot.Axes.GetLimits();
                 if (panel.Markers.Count > 0) plot.Axes.SetLimitsY(limits.Bottom, limits.Top + 0.35 * (limits.Top - limits.Bottom));
             }
-            if (p == 0 || panel.Markers.Count > 0) AddMarkerLabels(plot, p == 0 ? panel.Markers : [], unit);
+            if (p == 0 && panel.Markers.Count > 0) AddMarkerLabels(plot, panel.Markers, unit, figure.WidthPixels);
             if (p == 0 && figure.VelocityFactor is double vf) AddTimeAxis(plot, unit, xMin, xMax, vf);
             if (panel.Series.Count > 1 || panel.ShadedRegion is not null || panel.Band is not null)
                 plot.ShowLegend(Alignment.LowerRight);
@@ -139,13 +142,22 @@ public static class FigureRenderer
             marker.Emphasised ? LinePattern.Solid : LinePattern.Dotted);
     }
 
-    /// <summary>Labels hang from the top of the data area, rotated, so close markers stay legible.</summary>
-    private static void AddMarkerLabels(Plot plot, IReadOnlyList<FigureMarker> markers, DistanceUnit unit)
+    /// <summary>
+    /// Labels hang from the top of the data area, rotated. Markers closer than a label's height are fanned out to the
+    /// right so their labels never overprint; each label still starts at the top of its own marker's line.
+    /// </summary>
+    private static void AddMarkerLabels(Plot plot, IReadOnlyList<FigureMarker> markers, DistanceUnit unit, int widthPixels)
     {
         var limits = plot.Axes.GetLimits();
-        foreach (var marker in markers)
+        double dataWidthPixels = Math.Max(100, widthPixels - LeftPadding - RightPadding);
+        double minimumSpacing = LabelSpacingPixels * (limits.Right - limits.Left) / dataWidthPixels;
+        double lastX = double.NegativeInfinity;
+        foreach (var marker in markers.OrderBy(m => m.DistanceMeters))
         {
-            var text = plot.Add.Text(marker.Label, unit.FromMeters(marker.DistanceMeters), limits.Top);
+            double x = unit.FromMeters(marker.DistanceMeters);
+            double labelX = Math.Max(x, lastX + minimumSpacing);
+            lastX = labelX;
+            var text = plot.Add.Text(marker.Label, labelX, limits.Top);
             text.LabelStyle.Rotation = 90;
             text.LabelStyle.FontSize = 11;
             text.LabelStyle.Bold = marker.Emphasised;

@@ -108,7 +108,7 @@ internal static class ModelFitter
         var fitted = Model(uBest);
         double rss = 0;
         for (int i = 0; i < fitted.Length; i++) rss += (data.Samples[i] - fitted[i]) * (data.Samples[i] - fitted[i]);
-        var jacobian = Matrix<double>.Build.DenseOfColumnArrays(JacobianU(uBest));
+        var jacobian = new Lazy<Matrix<double>>(() => Matrix<double>.Build.DenseOfColumnArrays(JacobianU(uBest)));
         bool converged = result is not null && result.ReasonForExit is ExitCondition.Converged or ExitCondition.RelativeGradient
             or ExitCondition.AbsoluteGradient or ExitCondition.RelativePoints or ExitCondition.LackOfProgress;
         return new ModelFit(model, fitted, rss, Math.Max(0, result?.Iterations ?? maximumIterations), converged, jacobian, (bool[])free.Clone());

@@ -1,3 +1,4 @@
+using CableFault.Cables;
 using CableFault.Networks;
 using CableFault.Simulation;
 
@@ -121,11 +122,18 @@ internal sealed class RunModel
     }
 
     /// <summary>The run as a network (the times are relative to the incident edge).</summary>
-    internal CableNetwork ToNetwork() => new(Branch(0, 0, Context.ImpedanceOhms));
+    internal CableNetwork ToNetwork() => new(Branch(0, 0, Context.ImpedanceOhms, new Dictionary<double, CableMedium>()));
 
-    private NetworkBranch Branch(int start, double startTime, double impedance)
+    /// <param name="media">One medium per impedance, shared by its segments: the compiled network then evaluates the
+    /// cable's propagation (square roots and powers per frequency) once per impedance rather than once per segment.</param>
+    private NetworkBranch Branch(int start, double startTime, double impedance, Dictionary<double, CableMedium> media)
     {
         var c = Context;
+        CableMedium Medium(double z)
+        {
+            if (!media.TryGetValue(z, out var medium)) media[z] = medium = c.Medium(z);
+            return medium;
+        }
         double v = c.VelocityMetersPerSecond;
         var elements = new List<NetworkElement>();
         double previous = startTime;
@@ -134,7 +142,7 @@ internal sealed class RunModel
             var e = Events[i];
             double length = Math.Max((e.RoundTripSeconds - previous) * v / 2, MinimumSegmentMeters);
             previous = Math.Max(previous, e.RoundTripSeconds);
-            elements.Add(new CableSegment(length, c.Medium(impedance)));
+            elements.Add(new CableSegment(length, Medium(impedance)));
             switch (e.Element)
             {
                 case RunModelElement.Boundary: impedance = e.Value; break;
@@ -145,14 +153,14 @@ internal sealed class RunModel
                 case RunModelElement.Open: elements.Add(RunEnd.Open); return new NetworkBranch(elements);
                 case RunModelElement.Short: elements.Add(RunEnd.Short); return new NetworkBranch(elements);
                 case RunModelElement.Tap:
-                    var main = Branch(i + 1, previous, impedance);
+                    var main = Branch(i + 1, previous, impedance, media);
                     var side = new NetworkBranch(
-                        new CableSegment(Math.Max(e.Value * v / 2, MinimumSegmentMeters), c.Medium(impedance)), RunEnd.Open);
+                        new CableSegment(Math.Max(e.Value * v / 2, MinimumSegmentMeters), Medium(impedance)), RunEnd.Open);
                     elements.Add(new Junction([main, side]));
                     return new NetworkBranch(elements);
             }
         }
-        elements.Add(new CableSegment(TailMeters, c.Medium(impedance)));
+        elements.Add(new CableSegment(TailMeters, Medium(impedance)));
         elements.Add(RunEnd.Matched);
         return new NetworkBranch(elements);
     }
