@@ -7,6 +7,7 @@ using CableFault.Benchmarks;
 //        (whole-process cablefault simulate vs ngspice; --native times a Native AOT build too, made with
 //         dotnet publish src/CableFault.Cli -c Release -r linux-x64 -p:PublishAot=true -o out/native)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- accuracy [--cases N] [--out FILE]   (locate accuracy, Accuracy/)
+//   dotnet run -c Release --project tests/CableFault.Benchmarks -- batch [COUNT] (batch locate over COUNT traces, 1 vs 2 workers)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- --filter '*'   (any BenchmarkDotNet arguments)
 string mode = args.Length > 0 ? args[0] : "forward";
 switch (mode)
@@ -16,6 +17,8 @@ switch (mode)
         break;
     case "process":
         return ProcessBenchmark.Run(args.Skip(1).ToArray());
+    case "batch":
+        return BatchBenchmark.Run(args.Skip(1).ToArray());
     case "accuracy":
         return CableFault.Benchmarks.Accuracy.AccuracyBenchmark.Run(args.Skip(1).ToArray());
     default:

@@ -1,6 +1,7 @@
 // Accuracy benchmark of `locate` (issue: "Locate and classify faults by distance, with honest uncertainty").
 //
-// Run (Release; the full run takes a few minutes on a 2-core machine):
+// Run (Release). Time is almost all Locate: the default run took 18 min on the shared 2-core machine (load ~20) with
+// Locate at a median 5 s per trace, and will shrink as Locate gets faster; `--cases 20` takes about 5 min.
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- accuracy [--cases N] [--out FILE]
 //       [--seed S] [--threads T] [--no-speed]
 //   --cases N    random runs in the main set (default 200; every 4th block of 10 by ngspice: 50 of 200);
