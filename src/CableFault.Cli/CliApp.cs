@@ -43,6 +43,7 @@ public static class CliApp
         root.Subcommands.Add(CalibrateCommand.Create(context));
         root.Subcommands.Add(ConvertCommand.Create(context));
         root.Subcommands.Add(ReportCommand.Create(context));
+        root.Subcommands.Add(HistoryCommand.Create(context));
 
         ParseResult parsed = root.Parse(args);
         if (parsed.Errors.Count > 0)
