@@ -30,6 +30,9 @@ internal sealed class FitData
     internal double StartTimeSeconds { get; }
     internal double IntervalSeconds { get; }
 
+    /// <summary>Per-bin forward-model quantities shared by every simulation of a run against these data.</summary>
+    internal CableFault.Simulation.SweepCache Cache { get; } = new();
+
     /// <summary>σ of the Gaussian low-pass applied to the data, s (0 when none).</summary>
     internal double FilterSigmaSeconds { get; }
 

@@ -184,7 +184,7 @@ internal sealed class RunModel
             SampleCount = data.Samples.Length,
             PreTriggerSeconds = Math.Max(0, TimeOffsetSeconds - data.StartTimeSeconds),
         };
-        var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings);
+        var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings, data.Cache);
         if (OffsetVolts != 0)
             for (int i = 0; i < samples.Length; i++) samples[i] += OffsetVolts;
         return samples;

@@ -85,7 +85,12 @@ public static class ForwardModel
     }
 
     /// <summary>The noiseless samples, computed on an internal grid fine enough for the edge and then decimated.</summary>
-    internal static double[] SimulateSamples(CompiledNetwork network, InstrumentSettings settings)
+    internal static double[] SimulateSamples(CompiledNetwork network, InstrumentSettings settings) =>
+        SimulateSamples(network, settings, null);
+
+    /// <summary>As <see cref="SimulateSamples(CompiledNetwork, InstrumentSettings)"/>, reusing per-bin quantities from
+    /// <paramref name="cache"/> when given (a fit's repeated evaluations of one run with small changes).</summary>
+    internal static double[] SimulateSamples(CompiledNetwork network, InstrumentSettings settings, SweepCache? cache)
     {
         double rise = settings.RiseTimeSeconds;
         int oversample = (int)Math.Ceiling(settings.SampleIntervalSeconds / StimulusSpectrum.MaximumInternalIntervalSeconds(settings.EdgeShape, rise) - 1e-9);
@@ -109,35 +114,60 @@ public static class ForwardModel
         double sigma = -2 * Math.Log(BalancedError) / (period + recordSpan);
         double dOmega = 2 * Math.PI / period;
 
-        var evaluator = new NetworkEvaluator(network);
         double zs = settings.SourceImpedanceOhms, amplitude = settings.IncidentAmplitudeVolts;
-        var spectrum = new double[m + 2];
-        // e^(−s·t_c) along the contour is e^(−σt_c) times a phasor that turns by e^(−jΔω·t_c) per bin: a recurrence,
-        // refreshed exactly every 256 bins so rounding cannot accumulate.
-        Complex delayStep = Complex.FromPolarCoordinates(1, -dOmega * edgeCentre);
-        Complex delay = Complex.One;
-        for (int k = 0; k <= m / 2; k++)
+        double[] transformed;
+        if (cache is not null)
         {
-            var s = new Complex(sigma, k * dOmega);
-            if (StimulusSpectrum.IsNegligible(settings.EdgeShape, rise, s)) break;
-            if ((k & 255) == 0) delay = Complex.Exp(-s * edgeCentre);
-            else delay *= delayStep;
-            var (n, d) = evaluator.Evaluate(s);
-            Complex h = n / (zs * d + n);
-            Complex y = h * 2 * amplitude * StimulusSpectrum.Evaluate(settings.EdgeShape, rise, s) * delay / s;
-            if (k == m / 2) y = new Complex(y.Real, 0);
-            spectrum[2 * k] = y.Real;
-            spectrum[2 * k + 1] = y.Imaginary;
+            int bins = 0;
+            while (bins <= m / 2 && !StimulusSpectrum.IsNegligible(settings.EdgeShape, rise, new Complex(sigma, bins * dOmega))) bins++;
+            var grid = new SweepCache.Grid(m, sigma, dOmega, bins);
+            var (edge, delays) = cache.Stimulus(grid, settings.EdgeShape, rise, edgeCentre);
+            var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid);
+            var ys = new Complex[bins];
+            for (int k = 0; k < bins; k++)
+            {
+                // The same operations in the same order as the uncached loop below.
+                var s = new Complex(sigma, k * dOmega);
+                Complex n = ns[k];
+                Complex h = n / (zs * ds[k] + n);
+                Complex y = h * 2 * amplitude * edge[k] * delays[k] / s;
+                if (k == m / 2) y = new Complex(y.Real, 0);
+                ys[k] = y;
+            }
+            transformed = InverseFft.Real(ys, m);
         }
+        else
+        {
+            var spectrum = new double[m + 2];
+            var evaluator = new NetworkEvaluator(network);
+            // e^(−s·t_c) along the contour is e^(−σt_c) times a phasor that turns by e^(−jΔω·t_c) per bin: a recurrence,
+            // refreshed exactly every 256 bins so rounding cannot accumulate.
+            Complex delayStep = Complex.FromPolarCoordinates(1, -dOmega * edgeCentre);
+            Complex delay = Complex.One;
+            for (int k = 0; k <= m / 2; k++)
+            {
+                var s = new Complex(sigma, k * dOmega);
+                if (StimulusSpectrum.IsNegligible(settings.EdgeShape, rise, s)) break;
+                if ((k & 255) == 0) delay = Complex.Exp(-s * edgeCentre);
+                else delay *= delayStep;
+                var (n, d) = evaluator.Evaluate(s);
+                Complex h = n / (zs * d + n);
+                Complex y = h * 2 * amplitude * StimulusSpectrum.Evaluate(settings.EdgeShape, rise, s) * delay / s;
+                if (k == m / 2) y = new Complex(y.Real, 0);
+                spectrum[2 * k] = y.Real;
+                spectrum[2 * k + 1] = y.Imaginary;
+            }
 
-        // Hermitian-packed inverse real FFT without scaling: x_n = Σ_k Y_k e^{+2πikn/M} over all k.
-        Fourier.InverseReal(spectrum, m, FourierOptions.NoScaling);
+            // Hermitian-packed inverse real FFT without scaling: x_n = Σ_k Y_k e^{+2πikn/M} over all k.
+            Fourier.InverseReal(spectrum, m, FourierOptions.NoScaling);
+            transformed = spectrum;
+        }
         var samples = new double[settings.SampleCount];
         for (int i = 0; i < samples.Length; i++)
         {
             int index = shift + i * oversample;
             double t = index * dt;
-            samples[i] = Math.Exp(sigma * t) * spectrum[index] / period;
+            samples[i] = Math.Exp(sigma * t) * transformed[index] / period;
         }
         return samples;
     }

@@ -39,25 +39,7 @@ internal sealed class NetworkEvaluator
     {
         var media = _network.Media;
         for (int m = 0; m < media.Length; m++)
-        {
-            var medium = media[m];
-            if (medium.IsLossless)
-            {
-                _gamma[m] = s / medium.VelocityMetersPerSecond;
-                _zc[m] = medium.ImpedanceOhms;
-                _zSeries[m] = s * medium.InductanceHenriesPerMeter;
-                _yShunt[m] = s * medium.CapacitanceFaradsPerMeter;
-            }
-            else
-            {
-                Complex z = medium.SeriesImpedanceOhmsPerMeter(s), y = medium.ShuntAdmittanceSiemensPerMeter(s);
-                Complex gamma = Complex.Sqrt(z * y);
-                _gamma[m] = gamma;
-                _zc[m] = gamma == Complex.Zero ? medium.ImpedanceOhms : z / gamma;
-                _zSeries[m] = z;
-                _yShunt[m] = y;
-            }
-        }
+            (_gamma[m], _zc[m], _zSeries[m], _yShunt[m]) = Propagation(media[m], s);
 
         int top = -1;
         foreach (var op in _network.Ops)
@@ -93,32 +75,128 @@ internal sealed class NetworkEvaluator
         return (_stackN[0], _stackD[0]);
     }
 
+    /// <summary>
+    /// Input impedance pairs at every bin of <paramref name="grid"/>, with the per-bin propagation and segment matrices
+    /// taken from <paramref name="cache"/>: the same arithmetic as <see cref="Evaluate"/> without its transcendental calls.
+    /// </summary>
+    internal static (Complex[] N, Complex[] D) EvaluateSweep(CompiledNetwork network, SweepCache cache, SweepCache.Grid grid)
+    {
+        // Operations outer, bins inner: each operation is one tight loop over the bins (no dispatch per bin).
+        int bins = grid.BinCount;
+        var stackN = new Complex[network.MaxStackDepth + 1][];
+        var stackD = new Complex[network.MaxStackDepth + 1][];
+        int top = -1;
+        Complex S(int k) => new(grid.Sigma, k * grid.DOmega);
+        foreach (var op in network.Ops)
+        {
+            Complex[] n, d;
+            switch (op.Kind)
+            {
+                case CompiledNetwork.OpKind.Open or CompiledNetwork.OpKind.Short or CompiledNetwork.OpKind.Resistor
+                    or CompiledNetwork.OpKind.Matched or CompiledNetwork.OpKind.ResistorParallelCapacitor:
+                    top++;
+                    n = stackN[top] = new Complex[bins];
+                    d = stackD[top] = new Complex[bins];
+                    switch (op.Kind)
+                    {
+                        case CompiledNetwork.OpKind.Open: Array.Fill(n, Complex.One); break;
+                        case CompiledNetwork.OpKind.Short: Array.Fill(d, Complex.One); break;
+                        case CompiledNetwork.OpKind.Resistor: Array.Fill(n, op.Value); Array.Fill(d, Complex.One); break;
+                        case CompiledNetwork.OpKind.Matched:
+                            cache.Medium(grid, network.Media[op.Medium]).Zc.AsSpan(0, bins).CopyTo(n);
+                            Array.Fill(d, Complex.One);
+                            break;
+                        default:
+                            Array.Fill(n, op.Value);
+                            for (int k = 0; k < bins; k++) d[k] = 1 + S(k) * op.Value * op.Value2;
+                            break;
+                    }
+                    break;
+                case CompiledNetwork.OpKind.ShuntC:
+                    n = stackN[top]; d = stackD[top];
+                    for (int k = 0; k < bins; k++) d[k] += S(k) * op.Value * n[k];
+                    break;
+                case CompiledNetwork.OpKind.ShuntR:
+                    n = stackN[top]; d = stackD[top];
+                    for (int k = 0; k < bins; k++) d[k] += n[k] / op.Value;
+                    break;
+                case CompiledNetwork.OpKind.SeriesL:
+                    n = stackN[top]; d = stackD[top];
+                    for (int k = 0; k < bins; k++) n[k] += S(k) * op.Value * d[k];
+                    break;
+                case CompiledNetwork.OpKind.SeriesR:
+                    n = stackN[top]; d = stackD[top];
+                    for (int k = 0; k < bins; k++) n[k] += op.Value * d[k];
+                    break;
+                case CompiledNetwork.OpKind.Segment:
+                {
+                    n = stackN[top]; d = stackD[top];
+                    var m = cache.Segment(grid, network.Media[op.Medium], op.Value);
+                    Complex[] a = m.A, b = m.B, c = m.C;
+                    for (int k = 0; k < bins; k++)
+                    {
+                        Complex n0 = n[k], d0 = d[k];
+                        n[k] = a[k] * n0 + b[k] * d0;
+                        d[k] = c[k] * n0 + a[k] * d0;
+                        Normalise(ref n[k], ref d[k]);
+                    }
+                    break;
+                }
+                case CompiledNetwork.OpKind.Junction:
+                    for (int br = 1; br < op.Count; br++)
+                    {
+                        Complex[] n1 = stackN[top - 1], d1 = stackD[top - 1], n2 = stackN[top], d2 = stackD[top];
+                        top--;
+                        for (int k = 0; k < bins; k++)
+                        {
+                            Complex nn = n1[k] * n2[k];
+                            Complex dd = d1[k] * n2[k] + d2[k] * n1[k];
+                            Normalise(ref nn, ref dd);
+                            n1[k] = nn;
+                            d1[k] = dd;
+                        }
+                    }
+                    break;
+            }
+        }
+        return (stackN[0], stackD[0]);
+    }
+
+    /// <summary>γ, Z_c, Z′ and Y′ of a medium at complex frequency s.</summary>
+    internal static (Complex Gamma, Complex Zc, Complex ZSeries, Complex YShunt) Propagation(CableMedium medium, Complex s)
+    {
+        if (medium.IsLossless)
+            return (s / medium.VelocityMetersPerSecond, medium.ImpedanceOhms, s * medium.InductanceHenriesPerMeter,
+                s * medium.CapacitanceFaradsPerMeter);
+        Complex z = medium.SeriesImpedanceOhmsPerMeter(s), y = medium.ShuntAdmittanceSiemensPerMeter(s);
+        Complex gamma = Complex.Sqrt(z * y);
+        return (gamma, gamma == Complex.Zero ? medium.ImpedanceOhms : z / gamma, z, y);
+    }
+
     /// <summary>Applies a segment's ABCD matrix to a load pair, scaled by e^(−γl).</summary>
     internal static void ApplySegment(ref Complex n, ref Complex d, Complex gammaLength, Complex zc, Complex zSeriesTotal, Complex yShuntTotal)
     {
-        Complex a, b, c;
-        if (gammaLength.Magnitude < 1e-4)
-        {
-            // Small-argument series, exact to O((γl)^4): avoids 0/0 in Z_c = Z′/γ at s → 0.
-            Complex g2 = gammaLength * gammaLength;
-            a = 1 + g2 / 2;
-            Complex sinhc = 1 + g2 / 6;
-            b = zSeriesTotal * sinhc;
-            c = yShuntTotal * sinhc;
-        }
-        else
-        {
-            Complex e = Complex.Exp(-2 * gammaLength);
-            a = (1 + e) * 0.5;
-            Complex sh = (1 - e) * 0.5;
-            b = zc * sh;
-            c = sh / zc;
-        }
+        var (a, b, c) = SegmentMatrix(gammaLength, zc, zSeriesTotal, yShuntTotal);
         Complex newN = a * n + b * d;
         Complex newD = c * n + a * d;
         n = newN;
         d = newD;
         Normalise(ref n, ref d);
+    }
+
+    /// <summary>A segment's ABCD entries A (= D), B, C scaled by e^(−γl).</summary>
+    internal static (Complex A, Complex B, Complex C) SegmentMatrix(Complex gammaLength, Complex zc, Complex zSeriesTotal, Complex yShuntTotal)
+    {
+        if (gammaLength.Magnitude < 1e-4)
+        {
+            // Small-argument series, exact to O((γl)^4): avoids 0/0 in Z_c = Z′/γ at s → 0.
+            Complex g2 = gammaLength * gammaLength;
+            Complex sinhc = 1 + g2 / 6;
+            return (1 + g2 / 2, zSeriesTotal * sinhc, yShuntTotal * sinhc);
+        }
+        Complex e = Complex.Exp(-2 * gammaLength);
+        Complex sh = (1 - e) * 0.5;
+        return ((1 + e) * 0.5, zc * sh, sh / zc);
     }
 
     internal static void Normalise(ref Complex n, ref Complex d)

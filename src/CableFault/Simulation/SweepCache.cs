@@ -1,0 +1,109 @@
+using System.Collections.Concurrent;
+using System.Numerics;
+using CableFault.Cables;
+
+namespace CableFault.Simulation;
+
+/// <summary>
+/// Per-bin quantities of the forward model kept across calls that share a frequency contour: the stimulus factor,
+/// each medium's propagation and each segment's ABCD entries. A model fit simulates the same run hundreds of times
+/// with one or two lengths or lumped values changed (every Jacobian column), so nearly all of these repeat; the
+/// per-bin square roots, powers and exponentials then cost once rather than once per call.
+/// </summary>
+/// <remarks>Thread-safe (the Jacobian's columns are simulated in parallel). Entries are keyed by the exact doubles
+/// they were computed from, so a hit gives the same numbers a fresh evaluation would.</remarks>
+internal sealed class SweepCache
+{
+    /// <summary>Entries kept before the cache is emptied (each holds a few complex arrays of one per bin).</summary>
+    private const int MaximumEntries = 400;
+
+    internal readonly record struct Grid(int FftLength, double Sigma, double DOmega, int BinCount);
+
+    private readonly record struct MediumKey(Grid Grid, double ImpedanceOhms, double VelocityFactor, CableLossModel Loss);
+
+    private readonly record struct SegmentKey(MediumKey Medium, double LengthMeters);
+
+    private readonly record struct StimulusKey(Grid Grid, EdgeShape Shape, double RiseSeconds, double EdgeCentreSeconds);
+
+    internal sealed record MediumBins(Complex[] Gamma, Complex[] Zc, Complex[] ZSeries, Complex[] YShunt);
+
+    internal sealed record SegmentBins(Complex[] A, Complex[] B, Complex[] C);
+
+    private readonly ConcurrentDictionary<MediumKey, MediumBins> _media = new();
+    private readonly ConcurrentDictionary<SegmentKey, SegmentBins> _segments = new();
+    private readonly ConcurrentDictionary<StimulusKey, (Complex[] Edge, Complex[] Delay)> _stimuli = new();
+
+    private static MediumKey KeyOf(Grid grid, CableMedium medium) => new(grid, medium.ImpedanceOhms, medium.VelocityFactor, medium.Loss);
+
+    /// <summary>Entries added since the cache was last emptied (ConcurrentDictionary.Count takes every lock).</summary>
+    private int _entries;
+
+    private void Trim()
+    {
+        if (Interlocked.Increment(ref _entries) <= MaximumEntries) return;
+        Interlocked.Exchange(ref _entries, 0);
+        _segments.Clear();
+        _media.Clear();
+        _stimuli.Clear();
+    }
+
+    /// <summary>E(s) and e^(−s·t_c) per bin, computed as <see cref="ForwardModel"/> does.</summary>
+    internal (Complex[] Edge, Complex[] Delay) Stimulus(Grid grid, EdgeShape shape, double riseSeconds, double edgeCentreSeconds)
+    {
+        var key = new StimulusKey(grid, shape, riseSeconds, edgeCentreSeconds);
+        if (_stimuli.TryGetValue(key, out var cached)) return cached;
+        var result = (Edge: new Complex[grid.BinCount], Delay: new Complex[grid.BinCount]);
+        Complex delayStep = Complex.FromPolarCoordinates(1, -grid.DOmega * edgeCentreSeconds);
+        Complex delay = Complex.One;
+        for (int k = 0; k < grid.BinCount; k++)
+        {
+            var s = new Complex(grid.Sigma, k * grid.DOmega);
+            if ((k & 255) == 0) delay = Complex.Exp(-s * edgeCentreSeconds);
+            else delay *= delayStep;
+            result.Edge[k] = StimulusSpectrum.Evaluate(shape, riseSeconds, s);
+            result.Delay[k] = delay;
+        }
+        Trim();
+        return _stimuli.GetOrAdd(key, result);
+    }
+
+    /// <summary>γ, Z_c, Z′ and Y′ of a medium per bin, as <see cref="NetworkEvaluator"/> computes them.</summary>
+    internal MediumBins Medium(Grid grid, CableMedium medium)
+    {
+        var key = KeyOf(grid, medium);
+        if (_media.TryGetValue(key, out var cached)) return cached;
+        int count = grid.BinCount;
+        var bins = new MediumBins(new Complex[count], new Complex[count], new Complex[count], new Complex[count]);
+        for (int k = 0; k < count; k++)
+        {
+            var s = new Complex(grid.Sigma, k * grid.DOmega);
+            var (gamma, zc, z, y) = NetworkEvaluator.Propagation(medium, s);
+            bins.Gamma[k] = gamma;
+            bins.Zc[k] = zc;
+            bins.ZSeries[k] = z;
+            bins.YShunt[k] = y;
+        }
+        Trim();
+        return _media.GetOrAdd(key, bins);
+    }
+
+    /// <summary>A segment's ABCD entries per bin, scaled by e^(−γl) (see <see cref="NetworkEvaluator.SegmentMatrix"/>).</summary>
+    internal SegmentBins Segment(Grid grid, CableMedium medium, double lengthMeters)
+    {
+        var key = new SegmentKey(KeyOf(grid, medium), lengthMeters);
+        if (_segments.TryGetValue(key, out var cached)) return cached;
+        var m = Medium(grid, medium);
+        int count = grid.BinCount;
+        var bins = new SegmentBins(new Complex[count], new Complex[count], new Complex[count]);
+        for (int k = 0; k < count; k++)
+        {
+            var (a, b, c) = NetworkEvaluator.SegmentMatrix(m.Gamma[k] * lengthMeters, m.Zc[k], m.ZSeries[k] * lengthMeters,
+                m.YShunt[k] * lengthMeters);
+            bins.A[k] = a;
+            bins.B[k] = b;
+            bins.C[k] = c;
+        }
+        Trim();
+        return _segments.GetOrAdd(key, bins);
+    }
+}
