@@ -43,7 +43,18 @@ public static class CliApp
         root.Subcommands.Add(CalibrateCommand.Create(context));
         root.Subcommands.Add(ConvertCommand.Create(context));
         root.Subcommands.Add(ReportCommand.Create(context));
+        root.Subcommands.Add(HistoryCommand.Create(context));
 
+        if (args.Length > 0 && !args[0].StartsWith('-') && root.Subcommands.All(c => c.Name != args[0]))
+        {
+            error.WriteLine($"cablefault: unknown command '{args[0]}'; the commands are {string.Join(", ", root.Subcommands.Select(c => c.Name))} (see 'cablefault --help')");
+            return BadInput;
+        }
+        if (args.Length == 0)
+        {
+            error.WriteLine($"cablefault: give a command: {string.Join(", ", root.Subcommands.Select(c => c.Name))} (see 'cablefault --help')");
+            return BadInput;
+        }
         ParseResult parsed = root.Parse(args);
         if (parsed.Errors.Count > 0)
         {
