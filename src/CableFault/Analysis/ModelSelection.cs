@@ -44,6 +44,9 @@ internal static class ModelSelection
     /// <summary>Iterations after which a trial that is still far from the current criterion is given up.</summary>
     private const int TrialFirstIterations = 8;
 
+    /// <summary>Iterations of the first fit before the ends are tried against it (see <see cref="Select"/>).</summary>
+    private const int FirstFitProbeIterations = 12;
+
     /// <summary>BIC units within which a trial after its first iterations counts as promising.</summary>
     private const double PromisingMargin = 100;
 
@@ -66,7 +69,7 @@ internal static class ModelSelection
         string Key(RunModel m) => string.Join(",", m.Events.Select(e => $"{e.Element}@{Math.Round(e.RoundTripSeconds / effectiveRiseSeconds)}"));
         var tried = new HashSet<string> { Key(initial) };
 
-        var best = ModelFitter.Fit(initial, data, variance, cancellation: cancellation);
+        var best = ModelFitter.Fit(initial, data, variance, maximumIterations: FirstFitProbeIterations, cancellation: cancellation);
         double bestBic = Bic(best);
 
         // A trial frees the events it changed, the one before, and every event after: a change alters what reaches the
@@ -102,6 +105,22 @@ internal static class ModelSelection
             return accept;
         }
 
+        // A detector's many candidates are often one end and its echoes: the first fit of them all is the costliest of
+        // the selection, and an end trial then removes most of them. So the first fit stops early; if an end already
+        // wins against it, the full fit is skipped, and otherwise the fit is finished and the ends are tried afresh.
+        if (!best.Converged)
+        {
+            var probe = best;
+            var triedBefore = new HashSet<string>(tried);
+            TryEnds();
+            if (ReferenceEquals(best, probe))
+            {
+                tried = triedBefore;
+                best = ModelFitter.Fit(probe.Model, data, variance, maximumIterations: ModelFitter.DefaultMaximumIterations - FirstFitProbeIterations,
+                    cancellation: cancellation);
+                bestBic = Bic(best);
+            }
+        }
         TryEnds();
         Prune();
 
