@@ -20,6 +20,7 @@ public static class NetworkReversal
         if (elements.Any(e => e is Junction))
             throw new ArgumentException("only a linear run (no junctions) can be reversed", nameof(network));
         var chain = elements.Where(e => e is not RunEnd).Reverse().Append(newFarEnd).ToList();
-        return new CableNetwork(new NetworkBranch(chain), network.Name + " (from the far end)");
+        string name = string.IsNullOrWhiteSpace(network.Name) ? network.Name : network.Name.Trim() + " (from the far end)";
+        return new CableNetwork(new NetworkBranch(chain), name);
     }
 }
