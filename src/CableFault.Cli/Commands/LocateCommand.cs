@@ -5,6 +5,7 @@ using CableFault.Analysis;
 using CableFault.Cli.Infrastructure;
 using CableFault.Reporting;
 using CableFault.Reporting.Locate;
+using CableFault.Workflows;
 
 namespace CableFault.Cli.Commands;
 
@@ -24,6 +25,7 @@ public static class LocateCommand
             Arity = ArgumentArity.OneOrMore,
         };
         var cable = new CableSettingOptions();
+        var field = new FieldOptions();
         var units = CommonOptions.Units();
         var format = new Option<string>("--format") { Description = "text (a table) or json (DESIGN.md §4 contract; an array of those objects for several traces).", DefaultValueFactory = _ => "text" }
             .AcceptOnlyFromAmong("text", "json");
@@ -43,6 +45,7 @@ public static class LocateCommand
             traces, units, format, offset, window, png, svg, eventsCsv, jobs,
         };
         cable.AddTo(command);
+        field.AddTo(command);
         command.SetAction(parsed =>
         {
             var paths = parsed.GetValue(traces)!;
@@ -54,7 +57,8 @@ public static class LocateCommand
             var transform = TraceFiles.TransformFor(parsed.GetValue(window));
             double? offsetSeconds = parsed.GetValue(offset) is double ns ? ns * 1e-9 : null;
 
-            EventsCsv.Entry Locate(string path, Action<string> warn)
+            var insulation = field.InsulationClass(parsed);
+            EventsCsv.Entry Locate(string path, Action<string> warn, bool timingSigmaOnly = false)
             {
                 if (BatchInputs.ProblemBeforeReading(path) is string problem) throw new InputException(problem);
                 var loaded = TraceFiles.Load(new FileInfo(path), transform);
@@ -70,16 +74,47 @@ public static class LocateCommand
                     throw new InputException(BatchRunner.Named(e.Message, path, loaded.Name), e);
                 }
                 foreach (string warning in loaded.Warnings.Concat(settings.Warnings)) warn(warning);
-                var result = Locator.Locate(loaded.Trace, settings.ToLocateOptions() with { TimeZeroOffsetSeconds = offsetSeconds });
+                var options = settings.ToLocateOptions() with { TimeZeroOffsetSeconds = offsetSeconds };
+                // Both ends: the VF cancels, so the σ's must be the timing σ's alone.
+                if (timingSigmaOnly) options = options with { VelocityFactorRelativeSigma = 0 };
+                var lead = field.Lead(parsed, unit, library, settings.VelocityFactor);
+                if (lead is not null) options = lead.Shift(options);
+                var result = Locator.Locate(loaded.Trace, options);
+                if (lead is not null) result = lead.DropLeadEvents(result);
                 return new EventsCsv.Entry(path, loaded.Name, loaded.Trace.MetadataOrNull("run"), result);
             }
+
+            if (parsed.GetValue(field.BothEnds))
+            {
+                if (paths.Length != 2 || !paths.All(File.Exists))
+                    throw new InputException("--from-both-ends takes exactly two trace files: the one from end A, then the one from end B");
+                var (lengthMeters, lengthSigmaMeters) = field.LengthMeters(parsed, unit);
+                var a = Locate(paths[0], context.Warn, timingSigmaOnly: true);
+                var b = Locate(paths[1], context.Warn, timingSigmaOnly: true);
+                var pair = BothEndsLocation.Combine(a.Result, b.Result, lengthMeters, lengthSigmaMeters);
+                context.Output.Write(json
+                    ? BothEndsLocate.Json(pair, a.TraceName, b.TraceName, unit) + Environment.NewLine
+                    : BothEndsLocate.Text(pair, a.TraceName, b.TraceName, a.Result.Options.VelocityFactor, unit));
+                return CliApp.Success;
+            }
+            if (parsed.GetValue(field.Length) is not null)
+                throw new InputException("--length is for --from-both-ends; to work out the VF from a run of known length use 'cablefault calibrate'");
 
             if (BatchInputs.IsSingleFile(paths))
             {
                 var located = Locate(paths[0], context.Warn);
-                context.Output.Write(json
-                    ? LocateJson.Render(located.Result, located.TraceName, unit) + Environment.NewLine
-                    : LocateText.Render(located.Result, located.TraceName, unit));
+                bool ranged = VelocityRangeOutput.Applies(located.Result);
+                if (json)
+                {
+                    var node = LocateJson.ToNode(located.Result, located.TraceName, unit);
+                    if (ranged) VelocityRangeOutput.AddJson(node, located.Result, insulation);
+                    context.Output.WriteLine(node.ToJsonString(JsonOptions));
+                }
+                else
+                {
+                    context.Output.Write(LocateText.Render(located.Result, located.TraceName, unit));
+                    if (ranged) context.Output.Write(VelocityRangeOutput.Text(located.Result, insulation, unit));
+                }
                 WriteEventsCsv(parsed.GetValue(eventsCsv), [located], unit, context);
                 PlotOutput.Write(parsed.GetValue(png), parsed.GetValue(svg),
                     () => LocateFigures.Build(located.Result, located.Run ?? located.TraceName, unit), context);
@@ -96,7 +131,7 @@ public static class LocateCommand
             var outcomes = BatchRunner.Run(inputs, degree, (path, warn) =>
                 Locate(path, w => warn(BatchRunner.Named(w, path, Path.GetFileName(path)))), context, progress);
 
-            if (json) context.Output.WriteLine(RenderJsonArray(outcomes, unit));
+            if (json) context.Output.WriteLine(RenderJsonArray(outcomes, unit, insulation));
             else
             {
                 foreach (var done in outcomes.Where(o => o.Succeeded))
@@ -112,7 +147,9 @@ public static class LocateCommand
         return command;
     }
 
-    private static string RenderJsonArray(IReadOnlyList<BatchRunner.Outcome<EventsCsv.Entry>> outcomes, DistanceUnit unit)
+    private static readonly JsonSerializerOptions JsonOptions = new() { WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
+
+    private static string RenderJsonArray(IReadOnlyList<BatchRunner.Outcome<EventsCsv.Entry>> outcomes, DistanceUnit unit, Cables.InsulationClass insulation)
     {
         var array = new JsonArray();
         foreach (var outcome in outcomes)
@@ -121,6 +158,7 @@ public static class LocateCommand
             {
                 var node = LocateJson.ToNode(located.Result, located.TraceName, unit);
                 node["path"] = outcome.Path;
+                if (VelocityRangeOutput.Applies(located.Result)) VelocityRangeOutput.AddJson(node, located.Result, insulation);
                 array.Add(node);
             }
             else

@@ -1,0 +1,188 @@
+using System.Globalization;
+using CableFault.Analysis;
+using CableFault.Cables;
+using CableFault.Networks;
+using CableFault.Simulation;
+using CableFault.Tests.Reference.Ngspice;
+using CableFault.Traces;
+using CableFault.Workflows;
+using MathNet.Numerics.Interpolation;
+using Xunit.Abstractions;
+
+namespace CableFault.Tests.Workflows;
+
+/// <summary>
+/// Both-ends location: x = L·t_A/(t_A + t_B) must not depend on the velocity factor. Each run is simulated from end A
+/// and, reversed, from end B (end A left open), then located with a VF deliberately 5 % too high.
+/// </summary>
+public sealed class BothEndsLocationTests(ITestOutputHelper output)
+{
+    /// <summary>The issue's accuracy target for a both-ends distance: 0.1 % of the distance …</summary>
+    private const double TargetRelative = 0.001;
+
+    /// <summary>… or 2 cm, whichever is larger.</summary>
+    private const double TargetFloorMeters = 0.02;
+
+    /// <summary>The stated VF is this much too high, so a single-ended distance comes out this much too long.</summary>
+    private const double VelocityFactorError = 0.05;
+
+    /// <summary>A single-ended distance must be off by at least 4 % (the 5 % error less fitting slack) for the check
+    /// to show that the VF error was really there.</summary>
+    private const double SingleEndedMinimumError = 0.04;
+
+    private const double Vf = 0.66;
+    private const double RiseSeconds = 1e-9;
+    private const double SampleSeconds = 100e-12;
+    private const double PreTriggerSeconds = 5e-9;
+
+    private static readonly CableMedium Coax = new(50, Vf);
+
+    private static InstrumentSettings Instrument(double runMeters) => new()
+    {
+        RiseTimeSeconds = RiseSeconds, SampleIntervalSeconds = SampleSeconds, PreTriggerSeconds = PreTriggerSeconds,
+        // The record ends a quarter of the run's round trip after the far end: enough to fit it, few multiple echoes.
+        SampleCount = (int)((PreTriggerSeconds + 1.25 * 2 * runMeters / (Vf * PhysicalConstants.SpeedOfLightMetersPerSecond)) / SampleSeconds),
+    };
+
+    private static LocateResult LocateWrongVf(Trace trace) =>
+        Locator.Locate(trace, new LocateOptions { VelocityFactor = Vf * (1 + VelocityFactorError), VelocityFactorRelativeSigma = 0 });
+
+    public static TheoryData<string, double, double> Runs => new()
+    {
+        // name, fault position from A (m), run length (m)
+        { "shunt 100 Ω", 7.0, 20.0 },
+        { "75 Ω section start", 12.5, 18.0 },
+    };
+
+    private static CableNetwork Run(string name, double faultMeters, double lengthMeters) => name switch
+    {
+        "shunt 100 Ω" => new CableNetwork(new NetworkBranch(new CableSegment(faultMeters, Coax), new ShuntResistor(100),
+            new CableSegment(lengthMeters - faultMeters, Coax), RunEnd.Open)),
+        // A 2 m piece of 75 Ω cable with the same VF: two events, the first at faultMeters.
+        "75 Ω section start" => new CableNetwork(new NetworkBranch(new CableSegment(faultMeters, Coax), new CableSegment(2, new CableMedium(75, Vf)),
+            new CableSegment(lengthMeters - faultMeters - 2, Coax), RunEnd.Open)),
+        _ => throw new ArgumentException(name),
+    };
+
+    [Theory]
+    [MemberData(nameof(Runs))]
+    public void BothEndsDistanceIgnoresAWrongVelocityFactor(string name, double faultMeters, double lengthMeters)
+    {
+        var network = Run(name, faultMeters, lengthMeters);
+        var settings = Instrument(lengthMeters);
+        var fromA = LocateWrongVf(ForwardModel.Simulate(network, settings));
+        var fromB = LocateWrongVf(ForwardModel.Simulate(NetworkReversal.Reverse(network, RunEnd.Open), settings));
+        var result = BothEndsLocation.Combine(fromA, fromB, lengthMeters);
+
+        CheckFault(result, fromA, faultMeters, name);
+    }
+
+    private void CheckFault(BothEndsResult result, LocateResult fromA, double faultMeters, string name)
+    {
+        var both = result.Events.Where(e => e.SeenFrom == SeenFrom.BothEnds).ToList();
+        Assert.NotEmpty(both);
+        var nearest = both.MinBy(e => Math.Abs(e.DistanceFromAMeters - faultMeters))!;
+        double tolerance = Math.Max(TargetRelative * faultMeters, TargetFloorMeters);
+        var single = fromA.Events.MinBy(e => Math.Abs(e.DistanceMeters - faultMeters * (1 + VelocityFactorError)))!;
+        double singleError = single.DistanceMeters / faultMeters - 1;
+        output.WriteLine($"{name}: both ends {nearest.DistanceFromAMeters:F4} ± {nearest.DistanceSigmaMeters:F4} m (true {faultMeters} m); single-ended {single.DistanceMeters:F4} m ({singleError:P2})");
+        Assert.InRange(nearest.DistanceFromAMeters, faultMeters - tolerance, faultMeters + tolerance);
+        Assert.True(Math.Abs(singleError) > SingleEndedMinimumError, $"single-ended error {singleError:P2} should be about {VelocityFactorError:P0}");
+        // VF = 2L/(c·T) with T = 2L/v: the pair must give back the simulated VF (to the same 0.1 % target).
+        output.WriteLine($"{name}: implied VF {result.ImpliedVelocityFactor:F5} ± {result.ImpliedVelocityFactorSigma:E2}");
+        Assert.InRange(result.ImpliedVelocityFactor, Vf * (1 - TargetRelative), Vf * (1 + TargetRelative));
+    }
+
+    [Fact]
+    public void AFaultSeenFromOneEndOnlyIsFlagged()
+    {
+        // A shunt 100 Ω at 6 m from A; from B the trace is cut short before it, so B cannot see it.
+        const double length = 20, fault = 6;
+        var network = Run("shunt 100 Ω", fault, length);
+        var settings = Instrument(length);
+        var fromA = LocateWrongVf(ForwardModel.Simulate(network, settings));
+        var clean = new CableNetwork(new NetworkBranch(new CableSegment(length, Coax), RunEnd.Open));
+        var fromB = LocateWrongVf(ForwardModel.Simulate(clean, settings));
+        var result = BothEndsLocation.Combine(fromA, fromB, length);
+
+        var flagged = Assert.Single(result.Events);
+        Assert.Equal(SeenFrom.EndAOnly, flagged.SeenFrom);
+        Assert.Contains(result.Warnings, w => w.Contains("end A only", StringComparison.Ordinal));
+        // With both far ends seen, T is measured, so even a one-sided event is placed by x = L·t_A/T, free of the VF.
+        Assert.InRange(flagged.DistanceFromAMeters, fault - Math.Max(TargetRelative * fault, TargetFloorMeters), fault + Math.Max(TargetRelative * fault, TargetFloorMeters));
+    }
+
+    [Fact]
+    public void ReversalPutsTheLumpedPartAtTheMirroredPosition()
+    {
+        var network = Run("shunt 100 Ω", 7, 20);
+        var reversed = NetworkReversal.Reverse(network, RunEnd.Short);
+        var elements = reversed.Run.Elements;
+        Assert.Equal(13, Assert.IsType<CableSegment>(elements[0]).LengthMeters);
+        Assert.IsType<ShuntResistor>(elements[1]);
+        Assert.Equal(7, Assert.IsType<CableSegment>(elements[2]).LengthMeters);
+        Assert.Equal(EndKind.Short, Assert.IsType<RunEnd>(elements[3]).Kind);
+        Assert.Throws<ArgumentException>(() => NetworkReversal.Reverse(
+            new CableNetwork(new NetworkBranch(new Junction([new NetworkBranch(RunEnd.Open)]))), RunEnd.Open));
+    }
+
+    /// <summary>
+    /// The same check on traces from ngspice (Debian package ngspice, an independent circuit simulator; lossless lines
+    /// are its T element): a 100 Ω shunt 8 m into a 22 m run, simulated once from each end with the other end open.
+    /// </summary>
+    [NgspiceTheory]
+    [InlineData(8.0, 22.0)]
+    public void BothEndsDistanceFromNgspiceTraces(double faultMeters, double lengthMeters)
+    {
+        var fromA = LocateWrongVf(NgspiceTrace(faultMeters, lengthMeters - faultMeters, lengthMeters));
+        var fromB = LocateWrongVf(NgspiceTrace(lengthMeters - faultMeters, faultMeters, lengthMeters));
+        var result = BothEndsLocation.Combine(fromA, fromB, lengthMeters);
+        CheckFault(result, fromA, faultMeters, "ngspice shunt");
+    }
+
+    private static Trace NgspiceTrace(double firstMeters, double secondMeters, double runMeters)
+    {
+        var settings = Instrument(runMeters);
+        double tstop = settings.DurationSeconds + 2 * SampleSeconds;
+        string I(double value) => value.ToString("R", CultureInfo.InvariantCulture);
+        // The edge is the one of Reference/Ngspice/open.cir: V_s = 1 + erf((t − pre)/(σ√2)), erf by Abramowitz & Stegun,
+        // Handbook of Mathematical Functions (1964), eq. 7.1.26; the far end is open (1 TΩ for a DC path).
+        string netlist = $$"""
+            * both-ends check: {{I(firstMeters)}} m, 100 ohm shunt, {{I(secondMeters)}} m, open
+            .param vf={{I(Vf)}} c0=299792458 rise={{I(RiseSeconds)}} pre={{I(PreTriggerSeconds)}} sig={rise/2.5631031310892007} tmax={sig/10}
+            .func aspoly(t) {t*(0.254829592+t*(-0.284496736+t*(1.421413741+t*(-1.453152027+t*1.061405429))))}
+            .func erfpos(x) {1-aspoly(1/(1+0.3275911*x))*exp(-x*x)}
+            .func erfa(x) {sgn(x)*erfpos(abs(x))}
+            Bsrc src 0 V = 1*(1+erfa((time-{pre})/({sig}*sqrt(2))))
+            Rs src port 50
+            T1 port 0 mid 0 Z0=50 TD={{{I(firstMeters)}}/(vf*c0)}
+            Rf mid 0 100
+            T2 mid 0 far 0 Z0=50 TD={{{I(secondMeters)}}/(vf*c0)}
+            Rfar far 0 1e12
+            .tran {tmax} {{I(tstop)}} 0 {tmax}
+            .control
+            set wr_singlescale
+            set wr_vecnames
+            option numdgt=12
+            run
+            wrdata port.txt v(port)
+            quit
+            .endc
+            .end
+            """;
+        string path = Path.Combine(Path.GetTempPath(), $"cablefault-bothends-{Guid.NewGuid():N}.cir");
+        File.WriteAllText(path, netlist + "\n");
+        try
+        {
+            var (times, volts) = NgspiceRunner.Run(path);
+            var spice = LinearSpline.InterpolateSorted(times, volts);
+            // Trace time t is ngspice time t + pre (edge midpoint at 0), as in NgspiceComparisonTests.
+            var samples = Enumerable.Range(0, settings.SampleCount).Select(i => spice.Interpolate(i * SampleSeconds)).ToArray();
+            return new Trace(-PreTriggerSeconds, SampleSeconds, samples);
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+}
