@@ -43,6 +43,7 @@ public static class CliApp
         root.Subcommands.Add(CalibrateCommand.Create(context));
         root.Subcommands.Add(ConvertCommand.Create(context));
         root.Subcommands.Add(ReportCommand.Create(context));
+        root.Subcommands.Add(HistoryCommand.Create(context));
 
         if (args.Length > 0 && !args[0].StartsWith('-') && root.Subcommands.All(c => c.Name != args[0]))
         {

@@ -181,7 +181,10 @@ internal static class ModelSelection
             var m = best.Model;
             int worst = -1;
             double worstExcess = 0;
-            for (int i = 0; i < m.Events.Count; i++)
+            // Events at or past a total reflection are not split: TruncateAtTotalReflection below turns such a boundary
+            // into an exact end and removes everything after it, so a split there only costs fits that are thrown away.
+            int total = TotalReflectionIndex(m);
+            for (int i = 0; i < (total < 0 ? m.Events.Count : total); i++)
             {
                 if (m.Events[i].Element is RunModelElement.Tap or RunModelElement.Open or RunModelElement.Short) continue;
                 double excess = LocalExcess(best, data, variance, m.TimeOffsetSeconds + m.Events[i].RoundTripSeconds, effectiveRiseSeconds);
@@ -235,13 +238,7 @@ internal static class ModelSelection
         void TruncateAtTotalReflection()
         {
             var m = best.Model;
-            int at = -1;
-            for (int i = 0; i < m.Events.Count && at < 0; i++)
-            {
-                var e = m.Events[i];
-                if (e.EndsRun || (e.Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, i)) >= EventClassifier.EndReflection))
-                    at = i;
-            }
+            int at = TotalReflectionIndex(m);
             double recordEnd = data.TimeAt(data.Samples.Length - 1) - m.TimeOffsetSeconds;
             int beyondRecord = Enumerable.Range(0, m.Events.Count).Where(i => m.Events[i].RoundTripSeconds > recordEnd).DefaultIfEmpty(-1).First();
             if (at < 0 && beyondRecord < 0) return;
@@ -285,6 +282,18 @@ internal static class ModelSelection
                 if (!TryAccept(best.Model.WithEvents(list), simpler: true, weakest - 1, weakest)) break;
             }
         }
+    }
+
+    /// <summary>Index of the first end or boundary to |ρ| ≥ the classifier's end threshold, −1 when there is none.</summary>
+    private static int TotalReflectionIndex(RunModel m)
+    {
+        for (int i = 0; i < m.Events.Count; i++)
+        {
+            var e = m.Events[i];
+            if (e.EndsRun || (e.Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, i)) >= EventClassifier.EndReflection))
+                return i;
+        }
+        return -1;
     }
 
     /// <summary>ρ = (Z − Z_prev)/(Z + Z_prev) at a boundary (Pozar, <i>Microwave Engineering</i>, 4th ed., eq. 2.35).</summary>
