@@ -93,6 +93,45 @@ public sealed class BothEndsLocationTests(ITestOutputHelper output)
         Assert.InRange(result.ImpliedVelocityFactor, Vf * (1 - TargetRelative), Vf * (1 + TargetRelative));
     }
 
+    /// <summary>Noise of 2 mV RMS on a 1 V step (seeded): a field-grade trace. The both-ends σ must cover the error:
+    /// within 4 σ (a 6e-5 chance of a false failure for a Gaussian error).</summary>
+    [Fact]
+    public void WithNoiseTheSigmaCoversTheError()
+    {
+        const double length = 20, fault = 7;
+        var network = Run("shunt 100 Ω", fault, length);
+        var fromA = LocateWrongVf(ForwardModel.Simulate(network, Instrument(length) with { NoiseRmsVolts = 2e-3, NoiseSeed = 11 }));
+        var fromB = LocateWrongVf(ForwardModel.Simulate(NetworkReversal.Reverse(network, RunEnd.Open), Instrument(length) with { NoiseRmsVolts = 2e-3, NoiseSeed = 12 }));
+        var result = BothEndsLocation.Combine(fromA, fromB, length);
+        var nearest = result.Events.Where(e => e.SeenFrom == SeenFrom.BothEnds).MinBy(e => Math.Abs(e.DistanceFromAMeters - fault))!;
+        output.WriteLine($"noisy: {nearest.DistanceFromAMeters:F4} ± {nearest.DistanceSigmaMeters:F4} m (true {fault} m); {result.Events.Count} event(s)");
+        double tolerance = Math.Max(TargetRelative * fault, TargetFloorMeters);
+        Assert.InRange(nearest.DistanceFromAMeters, fault - tolerance, fault + tolerance);
+        Assert.True(nearest.DistanceSigmaMeters > 0, "a noisy fit must report a non-zero σ");
+        Assert.True(Math.Abs(nearest.DistanceFromAMeters - fault) <= 4 * nearest.DistanceSigmaMeters + 1e-4,
+            $"error {nearest.DistanceFromAMeters - fault:F4} m against σ {nearest.DistanceSigmaMeters:F4} m");
+    }
+
+    [Fact]
+    public void AFullBreakIsPlacedFromTheTwoOpens()
+    {
+        // The run is cut at 8 m of 20 m: A sees an open at 8 m, B an open at 12 m, and neither sees the far end. The
+        // two opens are one fault (t_A + t_B = T), not the run's two ends (t_A ≈ t_B ≈ T).
+        const double length = 20, cut = 8;
+        var coax = Coax;
+        var settings = Instrument(length);
+        var fromA = LocateWrongVf(ForwardModel.Simulate(new CableNetwork(new NetworkBranch(new CableSegment(cut, coax), RunEnd.Open)), settings));
+        var fromB = LocateWrongVf(ForwardModel.Simulate(new CableNetwork(new NetworkBranch(new CableSegment(length - cut, coax), RunEnd.Open)), settings));
+        var result = BothEndsLocation.Combine(fromA, fromB, length);
+
+        var fault = Assert.Single(result.Events);
+        Assert.Equal(SeenFrom.BothEnds, fault.SeenFrom);
+        double tolerance = Math.Max(TargetRelative * cut, TargetFloorMeters);
+        output.WriteLine($"break: {fault.DistanceFromAMeters:F4} m (true {cut} m), implied VF {result.ImpliedVelocityFactor:F5}");
+        Assert.InRange(fault.DistanceFromAMeters, cut - tolerance, cut + tolerance);
+        Assert.InRange(result.ImpliedVelocityFactor, Vf * (1 - TargetRelative), Vf * (1 + TargetRelative));
+    }
+
     [Fact]
     public void AFaultSeenFromOneEndOnlyIsFlagged()
     {
