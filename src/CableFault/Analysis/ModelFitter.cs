@@ -14,6 +14,9 @@ internal static class ModelFitter
     /// would make the Jacobian noisy; the truncation error (h/2 times the curvature) stays far below the noise.</summary>
     private const double DifferenceStep = 1e-3;
 
+    /// <summary>Indices of the incident amplitude and the level offset in <see cref="RunModel.ToVector"/>.</summary>
+    private const int AmplitudeIndex = 0, OffsetIndex = 3;
+
     /// <summary>Default iteration limit; warm starts converge in a handful.</summary>
     internal const int DefaultMaximumIterations = 40;
 
@@ -31,6 +34,7 @@ internal static class ModelFitter
         // Jacobian in the dimensionless parameters u (forward differences, columns in parallel).
         double[]? cachedU = null, cachedF = null;
         double[]? cachedJU = null;
+        double referenceAmplitude = initial.Context.ReferenceAmplitudeVolts;
         double[][]? cachedJ = null;
         double[] Model(double[] u)
         {
@@ -49,7 +53,17 @@ internal static class ModelFitter
             Parallel.For(0, p, new ParallelOptions { CancellationToken = cancellation }, j =>
             {
                 var col = new double[f0.Length];
-                if (free[j])
+                if (free[j] && j == AmplitudeIndex && u[AmplitudeIndex] != 0)
+                {
+                    // The samples are linear in the amplitude and the level offset: exact columns, no evaluation.
+                    double offset = u[OffsetIndex] * referenceAmplitude;
+                    for (int i = 0; i < col.Length; i++) col[i] = (f0[i] - offset) / u[AmplitudeIndex];
+                }
+                else if (free[j] && j == OffsetIndex)
+                {
+                    Array.Fill(col, referenceAmplitude);
+                }
+                else if (free[j])
                 {
                     var shifted = (double[])u.Clone();
                     shifted[j] += DifferenceStep;

@@ -44,6 +44,9 @@ internal static class ModelSelection
     /// <summary>Iterations after which a trial that is still far from the current criterion is given up.</summary>
     private const int TrialFirstIterations = 8;
 
+    /// <summary>Iterations of the first fit before the ends are tried against it (see <see cref="Select"/>).</summary>
+    private const int FirstFitProbeIterations = 12;
+
     /// <summary>BIC units within which a trial after its first iterations counts as promising.</summary>
     private const double PromisingMargin = 100;
 
@@ -66,7 +69,7 @@ internal static class ModelSelection
         string Key(RunModel m) => string.Join(",", m.Events.Select(e => $"{e.Element}@{Math.Round(e.RoundTripSeconds / effectiveRiseSeconds)}"));
         var tried = new HashSet<string> { Key(initial) };
 
-        var best = ModelFitter.Fit(initial, data, variance, cancellation: cancellation);
+        var best = ModelFitter.Fit(initial, data, variance, maximumIterations: FirstFitProbeIterations, cancellation: cancellation);
         double bestBic = Bic(best);
 
         // A trial frees the events it changed, the one before, and every event after: a change alters what reaches the
@@ -102,6 +105,22 @@ internal static class ModelSelection
             return accept;
         }
 
+        // A detector's many candidates are often one end and its echoes: the first fit of them all is the costliest of
+        // the selection, and an end trial then removes most of them. So the first fit stops early; if an end already
+        // wins against it, the full fit is skipped, and otherwise the fit is finished and the ends are tried afresh.
+        if (!best.Converged)
+        {
+            var probe = best;
+            var triedBefore = new HashSet<string>(tried);
+            TryEnds();
+            if (ReferenceEquals(best, probe))
+            {
+                tried = triedBefore;
+                best = ModelFitter.Fit(probe.Model, data, variance, maximumIterations: ModelFitter.DefaultMaximumIterations - FirstFitProbeIterations,
+                    cancellation: cancellation);
+                bestBic = Bic(best);
+            }
+        }
         TryEnds();
         Prune();
 
@@ -181,7 +200,10 @@ internal static class ModelSelection
             var m = best.Model;
             int worst = -1;
             double worstExcess = 0;
-            for (int i = 0; i < m.Events.Count; i++)
+            // Events at or past a total reflection are not split: TruncateAtTotalReflection below turns such a boundary
+            // into an exact end and removes everything after it, so a split there only costs fits that are thrown away.
+            int total = TotalReflectionIndex(m);
+            for (int i = 0; i < (total < 0 ? m.Events.Count : total); i++)
             {
                 if (m.Events[i].Element is RunModelElement.Tap or RunModelElement.Open or RunModelElement.Short) continue;
                 double excess = LocalExcess(best, data, variance, m.TimeOffsetSeconds + m.Events[i].RoundTripSeconds, effectiveRiseSeconds);
@@ -235,13 +257,7 @@ internal static class ModelSelection
         void TruncateAtTotalReflection()
         {
             var m = best.Model;
-            int at = -1;
-            for (int i = 0; i < m.Events.Count && at < 0; i++)
-            {
-                var e = m.Events[i];
-                if (e.EndsRun || (e.Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, i)) >= EventClassifier.EndReflection))
-                    at = i;
-            }
+            int at = TotalReflectionIndex(m);
             double recordEnd = data.TimeAt(data.Samples.Length - 1) - m.TimeOffsetSeconds;
             int beyondRecord = Enumerable.Range(0, m.Events.Count).Where(i => m.Events[i].RoundTripSeconds > recordEnd).DefaultIfEmpty(-1).First();
             if (at < 0 && beyondRecord < 0) return;
@@ -285,6 +301,18 @@ internal static class ModelSelection
                 if (!TryAccept(best.Model.WithEvents(list), simpler: true, weakest - 1, weakest)) break;
             }
         }
+    }
+
+    /// <summary>Index of the first end or boundary to |ρ| ≥ the classifier's end threshold, −1 when there is none.</summary>
+    private static int TotalReflectionIndex(RunModel m)
+    {
+        for (int i = 0; i < m.Events.Count; i++)
+        {
+            var e = m.Events[i];
+            if (e.EndsRun || (e.Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, i)) >= EventClassifier.EndReflection))
+                return i;
+        }
+        return -1;
     }
 
     /// <summary>ρ = (Z − Z_prev)/(Z + Z_prev) at a boundary (Pozar, <i>Microwave Engineering</i>, 4th ed., eq. 2.35).</summary>

@@ -15,13 +15,15 @@ internal static class InverseFft
 {
     private static readonly ConcurrentDictionary<int, (Complex[] Twiddles, int[] Reversed)> Plans = new();
 
+    /// <summary>e^(+2πij/M) for j &lt; M/2, and the bit reversal of the M/2-point complex transform.</summary>
     private static (Complex[] Twiddles, int[] Reversed) Plan(int m) => Plans.GetOrAdd(m, length =>
     {
         var twiddles = new Complex[length / 2];
         for (int j = 0; j < twiddles.Length; j++) twiddles[j] = Complex.FromPolarCoordinates(1, 2 * Math.PI * j / length);
-        int bits = System.Numerics.BitOperations.Log2((uint)length);
-        var reversed = new int[length];
-        for (int i = 0; i < length; i++)
+        int half = length / 2;
+        int bits = System.Numerics.BitOperations.Log2((uint)half);
+        var reversed = new int[half];
+        for (int i = 0; i < half; i++)
         {
             int r = 0;
             for (int b = 0; b < bits; b++) r |= ((i >> b) & 1) << (bits - 1 - b);
@@ -32,23 +34,29 @@ internal static class InverseFft
 
     /// <summary>
     /// Real samples of the inverse transform of the spectrum whose bins 0..M/2 are given (higher bins are the complex
-    /// conjugates; bins past <paramref name="half"/>'s length are zero).
+    /// conjugates; bins past <paramref name="given"/>'s length are zero).
     /// </summary>
-    /// <param name="half">Y_0 … Y_(K−1), K ≤ M/2 + 1.</param>
+    /// <remarks>The real M-point transform as one complex M/2-point transform: with X_(k+M/2) = conj(X_(M/2−k)),
+    /// x_2n = Σ_k E_k e^(2πikn/(M/2)) and x_(2n+1) = Σ_k O_k e^(2πikn/(M/2)) for E_k = X_k + conj(X_(M/2−k)) and
+    /// O_k = (X_k − conj(X_(M/2−k)))·e^(2πik/M), both Hermitian, so z = IDFT(E + jO) holds x_2n + j·x_(2n+1).</remarks>
+    /// <param name="given">X_0 … X_(K−1), K ≤ M/2 + 1.</param>
     /// <param name="m">Transform length M, a power of two ≥ 2.</param>
-    internal static double[] Real(ReadOnlySpan<Complex> half, int m)
+    internal static double[] Real(ReadOnlySpan<Complex> given, int m)
     {
         var (twiddles, reversed) = Plan(m);
-        var a = new Complex[m];
-        for (int k = 0; k < half.Length && k <= m / 2; k++)
+        int half = m / 2;
+        Complex X(int k, ReadOnlySpan<Complex> g) => k < g.Length ? g[k] : Complex.Zero;
+        var a = new Complex[half];
+        for (int k = 0; k < half; k++)
         {
-            a[reversed[k]] = half[k];
-            if (k > 0 && k < m - k) a[reversed[m - k]] = Complex.Conjugate(half[k]);
+            Complex xk = X(k, given), xm = Complex.Conjugate(X(half - k, given));
+            Complex e = xk + xm, o = (xk - xm) * twiddles[k];
+            a[reversed[k]] = new Complex(e.Real - o.Imaginary, e.Imaginary + o.Real);
         }
-        for (int size = 2; size <= m; size <<= 1)
+        for (int size = 2; size <= half; size <<= 1)
         {
-            int halfSize = size / 2, step = m / size;
-            for (int start = 0; start < m; start += size)
+            int halfSize = size / 2, step = 2 * (half / size);
+            for (int start = 0; start < half; start += size)
             {
                 for (int j = 0; j < halfSize; j++)
                 {
@@ -60,7 +68,11 @@ internal static class InverseFft
             }
         }
         var x = new double[m];
-        for (int i = 0; i < m; i++) x[i] = a[i].Real;
+        for (int n = 0; n < half; n++)
+        {
+            x[2 * n] = a[n].Real;
+            x[2 * n + 1] = a[n].Imaginary;
+        }
         return x;
     }
 }
