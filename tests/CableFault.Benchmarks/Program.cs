@@ -8,6 +8,7 @@ using CableFault.Benchmarks;
 //         dotnet publish src/CableFault.Cli -c Release -r linux-x64 -p:PublishAot=true -o out/native)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- accuracy [--cases N] [--out FILE]   (locate accuracy, Accuracy/)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- batch [COUNT] (batch locate over COUNT traces, 1 vs 2 workers)
+//   dotnet run -c Release --project tests/CableFault.Benchmarks -- history [COUNT] (run history: list and check with COUNT stored traces, default 10 000)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- --filter '*'   (any BenchmarkDotNet arguments)
 string mode = args.Length > 0 ? args[0] : "forward";
 switch (mode)
@@ -19,6 +20,8 @@ switch (mode)
         return ProcessBenchmark.Run(args.Skip(1).ToArray());
     case "batch":
         return BatchBenchmark.Run(args.Skip(1).ToArray());
+    case "history":
+        return HistoryBenchmark.Run(args.Skip(1).ToArray());
     case "accuracy":
         return CableFault.Benchmarks.Accuracy.AccuracyBenchmark.Run(args.Skip(1).ToArray());
     default:
