@@ -52,10 +52,10 @@ public static class HistoryCommand
         return Path.Combine(root, "cablefault", "history.db");
     }
 
-    private static Option<FileInfo?> DbOption() =>
+    internal static Option<FileInfo?> DbOption() =>
         new("--db") { Description = $"History database file (default: ${DatabaseVariable}, else {DefaultDatabasePath()})." };
 
-    private static string DatabasePath(ParseResult parsed, Option<FileInfo?> db) =>
+    internal static string DatabasePath(ParseResult parsed, Option<FileInfo?> db) =>
         parsed.GetValue(db)?.FullName
         ?? (Environment.GetEnvironmentVariable(DatabaseVariable) is { Length: > 0 } fromEnvironment ? fromEnvironment : DefaultDatabasePath());
 

@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Reflection;
 using CableFault.Analysis;
 using CableFault.Cli.Infrastructure;
+using CableFault.History;
 using CableFault.Comparison;
 using CableFault.Reporting;
 using CableFault.Reporting.Html;
@@ -28,12 +29,14 @@ public static class ReportCommand
         var date = new Option<string?>("--date") { Description = "Date and time of the measurement (ISO 8601 preferred)." };
         var length = new Option<double?>("--expected-length") { Description = "Installed length of the run, in --units: an end found there is reported as expected." };
         var units = CommonOptions.Units();
+        var historyRun = new Option<string?>("--run") { Description = "Run ID in the history database: its current baseline is used for the repair check (unless --baseline is given) and its earlier measurements are listed." };
+        var db = HistoryCommand.DbOption();
 
         var command = new Command("report",
             "Write one self-contained HTML report of a measurement: job header, summary, plots, event table, settings and cautions.\n\n" +
             "Example:\n  cablefault report traces/quillon-bay/mast-feeder-damaged.csv --job job.json -o QB-01.html")
         {
-            trace, output, baseline, job, site, runId, technician, date, length, units, offset, window,
+            trace, output, baseline, job, site, runId, technician, date, length, units, offset, window, historyRun, db,
         };
         cable.AddTo(command);
         command.SetAction(parsed =>
@@ -58,9 +61,26 @@ public static class ReportCommand
             });
 
             RepairCheckPart? repair = null;
-            if (parsed.GetValue(baseline) is FileInfo baselineFile)
+            IReadOnlyList<PastCheck>? history = null;
+            TraceFiles.Loaded? before = parsed.GetValue(baseline) is FileInfo baselineFile ? TraceFiles.Load(baselineFile, transform) : null;
+            if (parsed.GetValue(historyRun) is string historyRunId)
             {
-                var before = TraceFiles.Load(baselineFile, transform);
+                string path = HistoryCommand.DatabasePath(parsed, db);
+                if (!HistoryStore.Exists(path))
+                    throw new InputException($"{path}: no history database there; store traces first with 'cablefault history add TRACE --run {historyRunId}' or give --db");
+                using var store = HistoryStore.Open(path, new HistoryStoreOptions { CreateIfMissing = false });
+                var entries = store.List(historyRunId);
+                if (entries.Count == 0)
+                    throw new InputException($"{path}: run '{historyRunId}' has no stored traces; see 'cablefault history list'");
+                history = entries.Select(e => new PastCheck(e.Id, e.AddedUtc, e.FileName,
+                    e.IsCurrentBaseline ? "baseline (current)" : e.WasBaseline ? "baseline (earlier)" : e.Purpose == HistoryPurpose.Check ? "check" : "record",
+                    e.Passed, e.Note)).ToList();
+                if (before is null && store.CurrentBaseline(historyRunId) is { } stored)
+                    before = new TraceFiles.Loaded(stored.Trace, [], $"history #{stored.Entry.Id} ({stored.Entry.FileName}, stored {stored.Entry.AddedUtc.UtcDateTime:yyyy-MM-dd})");
+                if (sheet.RunId is null) sheet = sheet with { RunId = historyRunId };
+            }
+            if (before is not null)
+            {
                 foreach (string warning in before.Warnings) context.Warn($"{before.Name}: {warning}");
                 // Both traces are read with the settings resolved for the current one, so the comparison cannot
                 // disagree with the rest of the report.
@@ -84,7 +104,7 @@ public static class ReportCommand
                 }
             }
 
-            var input = new ReportInput(sheet, loaded.Name, result, settings, unit, DateTimeOffset.UtcNow, Version(), repair);
+            var input = new ReportInput(sheet, loaded.Name, result, settings, unit, DateTimeOffset.UtcNow, Version(), repair, history);
             string html = HtmlReport.Render(input);
             var target = parsed.GetValue(output)!;
             AtomicFile.WriteText(target.FullName, writer => writer.Write(html));

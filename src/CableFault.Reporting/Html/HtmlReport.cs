@@ -29,6 +29,7 @@ public static class HtmlReport
         ReportSections.Events(html, section++, input, findings);
         FigureSection(html, section++, input, findings);
         if (input.RepairCheck is { } repair) ReportSections.RepairCheck(html, section++, repair, input.Unit);
+        if (input.History is { Count: > 0 } history) ReportSections.History(html, section++, history);
         ReportSections.Settings(html, section++, input);
         ReportSections.Notes(html, section++, input);
         ReportSections.Safety(html, section++);

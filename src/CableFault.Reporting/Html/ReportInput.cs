@@ -19,4 +19,5 @@ public sealed record ReportInput(
     DistanceUnit Unit,
     DateTimeOffset GeneratedAt,
     string ToolVersion,
-    RepairCheckPart? RepairCheck = null);
+    RepairCheckPart? RepairCheck = null,
+    IReadOnlyList<PastCheck>? History = null);

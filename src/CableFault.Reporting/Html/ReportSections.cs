@@ -141,6 +141,24 @@ internal static class ReportSections
         }
     }
 
+    /// <summary>Earlier measurements of the run from the history database, oldest first.</summary>
+    internal static void History(StringBuilder html, int number, IReadOnlyList<PastCheck> history)
+    {
+        Heading(html, number, "Earlier measurements of this run", "history");
+        html.Append("<table class=\"history\">\n<thead><tr><th>#</th><th>Stored (UTC)</th><th>Trace</th><th>Role</th><th>Repair check</th><th>Note</th></tr></thead>\n<tbody>\n");
+        foreach (var past in history)
+        {
+            string verdict = past.Passed switch { true => "pass", false => "FAIL", null => "—" };
+            html.Append("<tr><td>").Append(past.Id.ToString(CultureInfo.InvariantCulture))
+                .Append("</td><td>").Append(HtmlText.Escape(past.AddedUtc.UtcDateTime.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture)))
+                .Append("</td><td class=\"file\">").Append(HtmlText.Escape(past.FileName))
+                .Append("</td><td>").Append(HtmlText.Escape(past.Role))
+                .Append("</td><td>").Append(verdict)
+                .Append("</td><td>").Append(HtmlText.Escape(past.Note ?? "")).Append("</td></tr>\n");
+        }
+        html.Append("</tbody>\n</table>\n");
+    }
+
     internal static void Settings(StringBuilder html, int number, ReportInput input)
     {
         var s = input.Settings;
