@@ -44,7 +44,7 @@ public static class NgspiceTraces
             string output = Path.Combine(folder, "port.txt");
             if (process.ExitCode != 0 || !File.Exists(output))
                 throw new InvalidOperationException($"ngspice failed on case {c.Index} (exit {process.ExitCode}): {stderr.Result}");
-            var (times, volts) = Parse(File.ReadLines(output));
+            var (times, volts) = CableFault.Tests.Reference.Ngspice.NgspiceRunner.Parse(File.ReadLines(output));
             var spline = LinearSpline.InterpolateSorted(times, volts);
             // ngspice puts the edge's 50 % point at t = pre; the trace starts at −pre with the 50 % point at 0.
             var samples = new double[c.SampleCount];
@@ -152,25 +152,6 @@ public static class NgspiceTraces
         text.AppendLine(".endc");
         text.AppendLine(".end");
         return text.ToString();
-    }
-
-    /// <summary>"time value" rows; other lines skipped; a repeated time (ngspice breakpoints) dropped.</summary>
-    private static (double[], double[]) Parse(IEnumerable<string> lines)
-    {
-        var times = new List<double>();
-        var volts = new List<double>();
-        foreach (string line in lines)
-        {
-            string[] fields = line.Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries);
-            if (fields.Length < 2) continue;
-            if (!double.TryParse(fields[0], NumberStyles.Float, CultureInfo.InvariantCulture, out double t)) continue;
-            if (!double.TryParse(fields[1], NumberStyles.Float, CultureInfo.InvariantCulture, out double v)) continue;
-            if (times.Count > 0 && t <= times[^1]) continue;
-            times.Add(t);
-            volts.Add(v);
-        }
-        if (times.Count < 2) throw new InvalidDataException("ngspice output has fewer than two data rows");
-        return (times.ToArray(), volts.ToArray());
     }
 
     private static string F(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
