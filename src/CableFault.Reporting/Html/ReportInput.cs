@@ -11,6 +11,7 @@ namespace CableFault.Reporting.Html;
 /// <param name="GeneratedAt">When the report was written (passed in, so rendering stays a pure function).</param>
 /// <param name="ToolVersion">CableFault version, for the footer.</param>
 /// <param name="RepairCheck">The repair-check section's content, or null when no baseline was given.</param>
+/// <param name="History">Earlier measurements of the run from the history database, or null when none was asked for.</param>
 public sealed record ReportInput(
     JobSheet Job,
     string TraceName,

@@ -124,6 +124,11 @@ internal sealed class RunModel
     /// <summary>The run as a network (the times are relative to the incident edge).</summary>
     internal CableNetwork ToNetwork() => new(Branch(0, 0, Context.ImpedanceOhms, new Dictionary<double, CableMedium>()));
 
+    /// <summary>The branch from event <paramref name="start"/> on, starting at round trip <paramref name="startTime"/> on a
+    /// line of <paramref name="impedance"/> Ω.</summary>
+    /// <param name="start">Index of the first event in this branch.</param>
+    /// <param name="startTime">Round-trip time where the branch starts, s.</param>
+    /// <param name="impedance">Line impedance at the branch start, Ω.</param>
     /// <param name="media">One medium per impedance, shared by its segments: the compiled network then evaluates the
     /// cable's propagation (square roots and powers per frequency) once per impedance rather than once per segment.</param>
     private NetworkBranch Branch(int start, double startTime, double impedance, Dictionary<double, CableMedium> media)

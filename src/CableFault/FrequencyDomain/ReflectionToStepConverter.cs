@@ -68,7 +68,7 @@ public static class ReflectionToStepConverter
             : BandPass(data, options, warnings, sourceName);
     }
 
-    /// <summary>The harmonic grid a low-pass transform of <paramref name="data"/> would use.</summary>
+    /// <summary>The harmonic grid a low-pass transform of the reflection data would use.</summary>
     private sealed record LowPassPlan(double StepHz, int FirstBin, int TopBin, bool Resampled)
     {
         internal static LowPassPlan Make(ReflectionData data)
