@@ -17,25 +17,8 @@ public static class RepairCheckFigures
         if (!(end > 0)) end = recordEnd;
         double start = -0.03 * end;
         var markers = listed.Select((c, i) => new FigureMarker(c.DistanceMeters, "c" + (i + 1), c.ExceedsTolerance)).ToList();
-        var overlay = new FigurePanel
-        {
-            Title = "Baseline and current trace",
-            YLabel = "Level (× incident step)",
-            Series =
-            [
-                new FigureSeries(d, comparison.Baseline.SamplesVolts.ToArray(), "baseline", SeriesStyle.Secondary),
-                new FigureSeries(d, comparison.Current.SamplesVolts.ToArray(), "current", SeriesStyle.Primary),
-            ],
-            Markers = markers,
-        };
-        var difference = new FigurePanel
-        {
-            Title = "Difference, current − baseline",
-            YLabel = "Difference (× incident step)",
-            Series = [new FigureSeries(d, comparison.Difference, "difference", SeriesStyle.Difference)],
-            Markers = markers,
-            Band = (-comparison.NoiseBand, comparison.NoiseBand),
-        };
+        var (overlay, difference) = CompareFigures.Panels(comparison, markers, "Baseline and current trace",
+            "Level (× incident step)", "Difference, current − baseline", shadeBlindZone: false);
         return new Figure
         {
             Panels = [overlay, difference],

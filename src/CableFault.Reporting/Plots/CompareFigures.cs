@@ -15,28 +15,10 @@ public static class CompareFigures
         var d = result.DistancesMeters;
         var markers = result.Events.Where(e => e.Kind != EventChangeKind.Unchanged)
             .Select(e => new FigureMarker(e.DistanceMeters, Label(e, unit), e.ExceedsTolerance)).ToList();
-        var traces = new FigurePanel
-        {
-            Title = "Baseline and current",
-            YLabel = "Port level (× incident step)",
-            Series =
-            [
-                new FigureSeries(d, result.Baseline.SamplesVolts.ToArray(), "baseline", SeriesStyle.Secondary),
-                new FigureSeries(d, result.Current.SamplesVolts.ToArray(), "current", SeriesStyle.Primary),
-            ],
-            Markers = markers,
-            ShadedRegion = (0, result.BlindZoneMeters),
-            ShadedRegionLabel = "blind zone",
-        };
-        var difference = new FigurePanel
-        {
-            Title = string.Create(CultureInfo.InvariantCulture,
+        var (traces, difference) = Panels(result, markers, "Baseline and current", "Port level (× incident step)",
+            string.Create(CultureInfo.InvariantCulture,
                 $"Difference (current − baseline); noise band ±{result.NoiseBand:0.0000}; verdict: {(result.Pass ? "pass" : "fail")}"),
-            YLabel = "Difference (× incident step)",
-            Series = [new FigureSeries(d, result.Difference, "difference", SeriesStyle.Difference)],
-            Markers = markers,
-            Band = (-result.NoiseBand, result.NoiseBand),
-        };
+            shadeBlindZone: true);
         return new Figure
         {
             Title = string.IsNullOrWhiteSpace(title) ? "Repair check" : title,
@@ -45,6 +27,38 @@ public static class CompareFigures
             VelocityFactor = result.Settings.VelocityFactor,
             DistanceRangeMeters = (Math.Min(0, d[0]), d[^1]),
         };
+    }
+
+    /// <summary>
+    /// The two panels every repair-check figure has: baseline and current overlaid (baseline dashed), and their
+    /// difference with the combined noise band; shared by this figure and the HTML report's.
+    /// </summary>
+    public static (FigurePanel Overlay, FigurePanel Difference) Panels(CompareResult result, IReadOnlyList<FigureMarker> markers,
+        string overlayTitle, string overlayYLabel, string differenceTitle, bool shadeBlindZone)
+    {
+        var d = result.DistancesMeters;
+        var overlay = new FigurePanel
+        {
+            Title = overlayTitle,
+            YLabel = overlayYLabel,
+            Series =
+            [
+                new FigureSeries(d, result.Baseline.SamplesVolts.ToArray(), "baseline", SeriesStyle.Secondary),
+                new FigureSeries(d, result.Current.SamplesVolts.ToArray(), "current", SeriesStyle.Primary),
+            ],
+            Markers = markers,
+            ShadedRegion = shadeBlindZone ? (0, result.BlindZoneMeters) : null,
+            ShadedRegionLabel = shadeBlindZone ? "blind zone" : "",
+        };
+        var difference = new FigurePanel
+        {
+            Title = differenceTitle,
+            YLabel = "Difference (× incident step)",
+            Series = [new FigureSeries(d, result.Difference, "difference", SeriesStyle.Difference)],
+            Markers = markers,
+            Band = (-result.NoiseBand, result.NoiseBand),
+        };
+        return (overlay, difference);
     }
 
     private static string Label(EventChange change, DistanceUnit unit)
