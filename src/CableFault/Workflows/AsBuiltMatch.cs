@@ -1,0 +1,14 @@
+namespace CableFault.Workflows;
+
+/// <summary>A located run held against its as-built list (made by <see cref="AsBuiltMatcher"/>).</summary>
+/// <param name="Events">One entry per located event, in the order the events were given.</param>
+/// <param name="Missing">Listed features no event matched, nearest first.</param>
+/// <param name="List">The list used.</param>
+public sealed record AsBuiltMatch(IReadOnlyList<AsBuiltEventMatch> Events, IReadOnlyList<AsBuiltMissing> Missing, AsBuiltList List)
+{
+    /// <summary>Events that are not on the list: these are the ones to look at.</summary>
+    public IReadOnlyList<AsBuiltEventMatch> Unexpected => Events.Where(e => !e.Expected).ToList();
+
+    /// <summary>How many listed features were found as expected.</summary>
+    public int ExpectedCount => Events.Count(e => e.Expected);
+}
