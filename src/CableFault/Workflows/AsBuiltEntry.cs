@@ -13,8 +13,16 @@ namespace CableFault.Workflows;
 public sealed record AsBuiltEntry(string Kind, double DistanceMeters, string? Label, double ToleranceMeters,
     IReadOnlyList<EventKind> AcceptedKinds)
 {
-    /// <summary>"splice S2" or "splice": how the entry is named to people.</summary>
-    public string Name => string.IsNullOrWhiteSpace(Label) ? Kind.Replace('_', ' ') : $"{Kind.Replace('_', ' ')} {Label}";
+    /// <summary>How the entry is named to people: "splice", "splice S2", "connector (roof-entry bulkhead)".</summary>
+    public string Name
+    {
+        get
+        {
+            string kind = Kind.Replace('_', ' ');
+            if (string.IsNullOrWhiteSpace(Label)) return kind;
+            return Label.Any(char.IsWhiteSpace) ? $"{kind} ({Label})" : $"{kind} {Label}";
+        }
+    }
 
     /// <summary>True when an event of <paramref name="kind"/> can be this feature.</summary>
     public bool Accepts(EventKind kind) => AcceptedKinds.Contains(kind);

@@ -1,0 +1,46 @@
+using System.Globalization;
+using CableFault.Analysis;
+using CableFault.Workflows;
+
+namespace CableFault.Reporting.Locate;
+
+/// <summary>
+/// One line saying how the distances were worked out: which workflow, where the VF came from, what was taken off the
+/// time axis. Shown under the event tables so that every distance can be traced to its method.
+/// </summary>
+public static class DistanceMethod
+{
+    /// <summary>"single-ended, VF 0.660 from cable type RG-213 (±2 %)", with a launch lead or time offset when used.</summary>
+    /// <param name="options">The options the run was located with (VF, its source and σ, time-zero offset).</param>
+    /// <param name="cableDesignation">The cable type named, when the VF came from it.</param>
+    /// <param name="lead">The launch lead removed, or null.</param>
+    /// <param name="unit">Distance unit for the lead's length.</param>
+    public static string Describe(LocateOptions options, string? cableDesignation, LaunchLead? lead, DistanceUnit unit)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        ArgumentNullException.ThrowIfNull(unit);
+        var inv = CultureInfo.InvariantCulture;
+        string vf = string.Create(inv, $"VF {options.VelocityFactor:0.000}");
+        string sigma = string.Create(inv, $" (±{options.VelocityFactorRelativeSigma * 100:0.#} %)");
+        string source = options.VelocityFactorSource switch
+        {
+            "option" => $"single-ended, {vf} given on the command line{sigma}",
+            "metadata" => $"single-ended, {vf} from the trace file{sigma}",
+            "cable" => $"single-ended, {vf} from cable type {cableDesignation ?? "(named)"}{sigma}",
+            "calibrated" => $"single-ended, {vf} calibrated earlier (recorded in the trace file){sigma}",
+            "job" => $"single-ended, {vf} from the job file{sigma}",
+            "default" => string.Create(inv, $"single-ended, VF unknown: each distance is really an interval over the VF range (the single figures assume {options.VelocityFactor:0.00})"),
+            string other => $"single-ended, {vf} ({other}){sigma}",
+        };
+        var parts = new List<string> { source };
+        double offset = options.TimeZeroOffsetSeconds ?? 0;
+        if (lead is not null)
+        {
+            parts.Add(string.Create(inv, $"launch lead {unit.Format(lead.LengthMeters, 1)} (VF {lead.VelocityFactor:0.00}) removed"));
+            offset -= lead.RoundTripSeconds;
+        }
+        if (Math.Abs(offset) > 1e-15)
+            parts.Add(string.Create(inv, $"reference plane moved {offset * 1e9:0.###} ns round trip past the edge"));
+        return string.Join("; ", parts);
+    }
+}
