@@ -26,10 +26,10 @@ public static class DistanceMethod
         {
             "option" => $"single-ended, {vf} given on the command line{sigma}",
             "metadata" => $"single-ended, {vf} from the trace file{sigma}",
-            "cable" => $"single-ended, {vf} from cable type {cableDesignation ?? "(named)"}{sigma}",
+            "cable" => $"single-ended, {vf} from {(cableDesignation is null ? "the cable type" : "cable type " + cableDesignation)}{sigma}",
             "calibrated" => $"single-ended, {vf} calibrated earlier (recorded in the trace file){sigma}",
             "job" => $"single-ended, {vf} from the job file{sigma}",
-            "default" => string.Create(inv, $"single-ended, VF unknown: each distance is really an interval over the VF range (the single figures assume {options.VelocityFactor:0.00})"),
+            "default" => string.Create(inv, $"single-ended, VF not known: {options.VelocityFactor:0.00} assumed{sigma}, so each distance is really an interval over the VF range of the cable's insulation"),
             string other => $"single-ended, {vf} ({other}){sigma}",
         };
         var parts = new List<string> { source };

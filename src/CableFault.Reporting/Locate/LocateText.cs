@@ -13,7 +13,8 @@ public static class LocateText
     /// <param name="traceName">Name for the first line.</param>
     /// <param name="unit">Distance unit.</param>
     /// <param name="asBuilt">The events held against an as-built list: adds a column and a summary, unexpected first.</param>
-    /// <param name="method">How the distances were worked out (<see cref="DistanceMethod"/>), shown under the header.</param>
+    /// <param name="method">How the distances were worked out (<see cref="DistanceMethod"/>), shown under the header;
+    /// null for what the result's options alone tell.</param>
     public static string Render(LocateResult result, string traceName, DistanceUnit unit, AsBuiltMatch? asBuilt = null, string? method = null)
     {
         var text = new StringBuilder();
@@ -25,7 +26,7 @@ public static class LocateText
             $"  VF {o.VelocityFactor:F3} ({o.VelocityFactorSource}, ±{o.VelocityFactorRelativeSigma * 100:0.#} %)   Z0 {o.ImpedanceOhms:0.#} Ω   source {o.SourceImpedanceOhms:0.#} Ω"));
         text.AppendLine(string.Create(inv,
             $"  rise {c.RiseTimeSeconds * 1e9:0.###} ns   noise {c.NoiseRmsVolts * 1e3:0.###} mV RMS   step {c.IncidentAmplitudeVolts:0.###} V   blind zone {unit.Format(result.BlindZoneMeters)}"));
-        if (method is not null) text.AppendLine($"  distances: {method}");
+        text.AppendLine($"  distances: {method ?? DistanceMethod.Describe(o, null, null, unit)}");
         text.AppendLine();
         if (result.Events.Count == 0)
         {
