@@ -73,7 +73,7 @@ public static class CalibrateCommand
                 }
                 vf = fit.VelocityFactor;
                 relative = fit.VelocityFactorRelativeSigma;
-                describedAs = $"known {(k.Label is null ? "event" : k.Label)} at {unit.Format(k.Meters)}";
+                describedAs = $"the known {(k.Label is null ? "event" : k.Label)} at {unit.Format(k.Meters)}";
                 if (json)
                 {
                     context.Output.WriteLine(JsonSerializer.Serialize(new Dictionary<string, object?>
@@ -87,7 +87,7 @@ public static class CalibrateCommand
                 else
                 {
                     context.Output.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                        $"VF {vf:F4} ± {fit.VelocityFactorSigma:F4} (1 σ, {relative * 100:0.###} %) from the {EventWording.KindWords(fit.Event.Kind)} at {fit.Event.RoundTripSeconds * 1e9:F3} ns round trip, taken as the {describedAs} (± {unit.Format(k.SigmaMeters)})"));
+                        $"VF {vf:F4} ± {fit.VelocityFactorSigma:F4} (1 σ, {relative * 100:0.###} %) from the {EventWording.KindWords(fit.Event.Kind)} at {fit.Event.RoundTripSeconds * 1e9:F3} ns round trip, taken as {describedAs} (± {unit.Format(k.SigmaMeters)})"));
                     context.Output.WriteLine(string.Create(CultureInfo.InvariantCulture,
                         $"  event used: the one nearest {unit.Format(k.Meters)} under the VF in use before ({fit.SearchVelocityFactor:0.000}, from {settings.VelocityFactorSource}), where it lay at {unit.Format(fit.Event.DistanceMeters)}"));
                 }
@@ -109,7 +109,7 @@ public static class CalibrateCommand
                 relative = Math.Sqrt(Math.Pow(timeSigma / end.RoundTripSeconds, 2) + Math.Pow(lengthSigmaMeters / lengthMeters, 2));
                 if (!(vf > 0 && vf <= 1))
                     throw new InputException(string.Create(CultureInfo.InvariantCulture, $"{loaded.Name}: the end at {end.RoundTripSeconds * 1e9:F2} ns round trip and a length of {unit.Format(lengthMeters)} give VF {vf:F3}, which is impossible; check --length and that the far end is the last event"));
-                describedAs = unit.Format(lengthMeters);
+                describedAs = $"a run of known length {unit.Format(lengthMeters)}";
 
                 if (json)
                 {
@@ -135,7 +135,7 @@ public static class CalibrateCommand
                     Designation = name,
                     VelocityFactor = Math.Round(vf, 5),
                     Description = $"{basis.Description}; VF calibrated on {describedAs}",
-                    Source = string.Create(CultureInfo.InvariantCulture, $"calibrated on {(known is null ? "a run of known length" : "an event at a known distance")}, VF ± {relative * 100:0.##} % (1 σ), {DateTime.UtcNow:yyyy-MM-dd}"),
+                    Source = string.Create(CultureInfo.InvariantCulture, $"calibrated on {describedAs}, VF ± {relative * 100:0.##} % (1 σ), {DateTime.UtcNow:yyyy-MM-dd}"),
                 };
                 var existing = cableFile.Exists ? InputFiles.Read(cableFile, "cable", CableTypeJson.Read) : [];
                 var kept = existing.Where(t => !string.Equals(t.Designation, name, StringComparison.OrdinalIgnoreCase)).Append(calibrated).ToList();

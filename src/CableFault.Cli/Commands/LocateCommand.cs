@@ -86,7 +86,7 @@ public static class LocateCommand
                 if (lead is not null) options = lead.Shift(options);
                 var result = Locator.Locate(loaded.Trace, options);
                 if (lead is not null) result = lead.DropLeadEvents(result);
-                string method = DistanceMethod.Describe(result.Options, settings.Cable?.Designation, lead, unit);
+                string method = DistanceMethod.Describe(result.Options, settings.Cable, lead, unit);
                 return new EventsCsv.Entry(path, loaded.Name, loaded.Trace.MetadataOrNull("run"), result, method);
             }
 

@@ -60,7 +60,7 @@ internal static class ReportSections
         }
         html.Append("</tbody></table></div>\n")
             .Append("<p class=\"note method\">How the distances were found: ")
-            .Append(HtmlText.Escape(Locate.DistanceMethod.Describe(input.Result.Options, input.Settings.Cable?.Designation, null, unit)))
+            .Append(HtmlText.Escape(Locate.DistanceMethod.Describe(input.Result.Options, input.Settings.Cable, null, unit)))
             .Append(".</p>\n");
         if (input.AsBuilt is { } asBuilt)
         {
@@ -241,7 +241,7 @@ internal static class ReportSections
         "option" => "the command line",
         "metadata" => "the trace file",
         "cable" => "the cable type's nominal value",
-        "calibrated" => "a calibration on a run of known length",
+        "calibrated" => "a calibration recorded in the trace file",
         "job" => "the job file",
         "default" => "a default (nothing else given: check it)",
         _ => source,

@@ -1,5 +1,6 @@
 using System.Globalization;
 using CableFault.Analysis;
+using CableFault.Cables;
 using CableFault.Workflows;
 
 namespace CableFault.Reporting.Locate;
@@ -12,10 +13,10 @@ public static class DistanceMethod
 {
     /// <summary>"single-ended, VF 0.660 from cable type RG-213 (±2 %)", with a launch lead or time offset when used.</summary>
     /// <param name="options">The options the run was located with (VF, its source and σ, time-zero offset).</param>
-    /// <param name="cableDesignation">The cable type named, when the VF came from it.</param>
+    /// <param name="cable">The cable type named, when the VF came from it (a calibrated type says what it was calibrated on).</param>
     /// <param name="lead">The launch lead removed, or null.</param>
     /// <param name="unit">Distance unit for the lead's length.</param>
-    public static string Describe(LocateOptions options, string? cableDesignation, LaunchLead? lead, DistanceUnit unit)
+    public static string Describe(LocateOptions options, CableType? cable, LaunchLead? lead, DistanceUnit unit)
     {
         ArgumentNullException.ThrowIfNull(options);
         ArgumentNullException.ThrowIfNull(unit);
@@ -26,7 +27,7 @@ public static class DistanceMethod
         {
             "option" => $"single-ended, {vf} given on the command line{sigma}",
             "metadata" => $"single-ended, {vf} from the trace file{sigma}",
-            "cable" => $"single-ended, {vf} from {(cableDesignation is null ? "the cable type" : "cable type " + cableDesignation)}{sigma}",
+            "cable" => $"single-ended, {vf} from {CableWords(cable)}{sigma}",
             "calibrated" => $"single-ended, {vf} calibrated earlier (recorded in the trace file){sigma}",
             "job" => $"single-ended, {vf} from the job file{sigma}",
             "default" => string.Create(inv, $"single-ended, VF not known: {options.VelocityFactor:0.00} assumed{sigma}, so each distance is really an interval over the VF range of the cable's insulation"),
@@ -42,5 +43,14 @@ public static class DistanceMethod
         if (Math.Abs(offset) > 1e-15)
             parts.Add(string.Create(inv, $"reference plane moved {offset * 1e9:0.###} ns round trip past the edge"));
         return string.Join("; ", parts);
+    }
+
+    private static string CableWords(CableType? cable)
+    {
+        if (cable is null) return "the cable type";
+        // A type written by 'calibrate' keeps in its source what it was calibrated on.
+        return cable.Source.StartsWith("calibrated", StringComparison.OrdinalIgnoreCase)
+            ? $"cable type {cable.Designation}, {cable.Source}"
+            : $"cable type {cable.Designation}";
     }
 }

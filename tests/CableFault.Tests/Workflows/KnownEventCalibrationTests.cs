@@ -75,6 +75,29 @@ public sealed class KnownEventCalibrationTests(ITestOutputHelper output) : IDisp
     }
 
     [Fact]
+    public void TheCalibratedTypePlacesTheLeakAndSaysHowItsVfWasFound()
+    {
+        string trace = Trace();
+        string cables = Path.Combine(folder, "cables.json");
+        var calibrate = CliRunner.Run("calibrate", trace, "--vf", "0.66", "--z0", "50", "--vf-uncertainty-percent", "5",
+            "--known-event", "15", "--known-event-uncertainty", "0.02", "--write-cable", cables, "--designation", "SITE-COAX", "--format", "json");
+        Assert.True(calibrate.ExitCode == 0, calibrate.Error);
+        double relative = (double)JsonNode.Parse(calibrate.Output)!["vf_relative_sigma"]!;
+
+        var located = CliRunner.Run("locate", trace, "--cables", cables, "--cable", "SITE-COAX", "--format", "json");
+        Assert.True(located.ExitCode == 0, located.Error);
+        var root = JsonNode.Parse(located.Output)!;
+        Assert.Contains("calibrated on the known event at 15.00 m", (string?)root["distance_method"], StringComparison.Ordinal);
+        // The leak at 25 m (the network's): within three calibrated-VF σ's of the distance plus a 2 cm timing floor
+        // (the field workflows' accuracy target). The cable file keeps no VF σ, so the table's own ± is the nominal 2 %.
+        var leak = root["events"]!.AsArray().Single(e => Math.Abs((double)e!["distance_m"]! - FaultMeters) < 2)!;
+        double d = (double)leak["distance_m"]!;
+        double tolerance = 3 * relative * FaultMeters + 0.02;
+        output.WriteLine($"leak at {d:F4} m, tolerance {tolerance:F3} m");
+        Assert.InRange(d, FaultMeters - tolerance, FaultMeters + tolerance);
+    }
+
+    [Fact]
     public void TheLabelOfAnAsBuiltListGivesTheDistance()
     {
         string trace = Trace();
