@@ -100,9 +100,18 @@ public static class LocateCommand
                 var a = Locate(paths[0], context.Warn, timingSigmaOnly: true);
                 var b = Locate(paths[1], context.Warn, timingSigmaOnly: true);
                 var pair = BothEndsLocation.Combine(a.Result, b.Result, lengthMeters, lengthSigmaMeters);
-                context.Output.Write(json
-                    ? BothEndsLocate.Json(pair, a.TraceName, b.TraceName, unit) + Environment.NewLine
-                    : BothEndsLocate.Text(pair, a.TraceName, b.TraceName, a.Result.Options.VelocityFactor, unit));
+                string method = DistanceMethod.BothEnds(lengthMeters, lengthSigmaMeters, unit);
+                if (json)
+                {
+                    var node = JsonNode.Parse(BothEndsLocate.Json(pair, a.TraceName, b.TraceName, unit))!.AsObject();
+                    node["distance_method"] = method;
+                    context.Output.WriteLine(node.ToJsonString(JsonOptions));
+                }
+                else
+                {
+                    context.Output.Write(BothEndsLocate.Text(pair, a.TraceName, b.TraceName, a.Result.Options.VelocityFactor, unit));
+                    context.Output.WriteLine($"distances: {method}");
+                }
                 return CliApp.Success;
             }
             if (parsed.GetValue(field.Length) is not null)

@@ -45,6 +45,16 @@ public static class DistanceMethod
         return string.Join("; ", parts);
     }
 
+    /// <summary>"both ends: x = L·t_A/(t_A + t_B) over L = 48.500 m ± 0.100 m (no VF needed)".</summary>
+    /// <param name="lengthMeters">Physical length between the two measuring points, m.</param>
+    /// <param name="lengthSigmaMeters">Its 1-σ uncertainty, m.</param>
+    /// <param name="unit">Distance unit.</param>
+    public static string BothEnds(double lengthMeters, double lengthSigmaMeters, DistanceUnit unit)
+    {
+        ArgumentNullException.ThrowIfNull(unit);
+        return $"both ends: x = L·t_A/(t_A + t_B) over L = {unit.Format(lengthMeters, 3)} ± {unit.Format(lengthSigmaMeters, 3)} (no VF needed)";
+    }
+
     private static string CableWords(CableType? cable)
     {
         if (cable is null) return "the cable type";
