@@ -86,7 +86,7 @@ internal static class ReportSections
     {
         html.Append("<td class=\"as-built\" data-label=\"As built\">");
         if (finding.AsBuilt is not { } match) html.Append('—');
-        else if (match.Expected) html.Append(HtmlText.Escape(Locate.AsBuiltWording.Status(match, unit)));
+        else if (match.Expected || !match.Unexpected || finding.Role == FindingRole.BeyondEnd) html.Append(HtmlText.Escape(Locate.AsBuiltWording.Status(match, unit)));
         else html.Append("<span class=\"tag attention\">").Append(HtmlText.Escape(Locate.AsBuiltWording.Status(match, unit))).Append("</span>");
         html.Append("</td>");
     }

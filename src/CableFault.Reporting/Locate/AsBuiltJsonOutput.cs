@@ -23,6 +23,7 @@ public static class AsBuiltJsonOutput
                 if (events[i] is not JsonObject e) continue;
                 var m = match.Events[i];
                 var status = new JsonObject { ["status"] = m.Expected ? "expected" : "unexpected" };
+                if (m.BeyondFullReflection is { } wall) status["echo_beyond_m"] = Math.Round(wall.DistanceMeters, 4);
                 if (m.Entry is { } entry)
                 {
                     Describe(status, entry, feet, unit);
@@ -54,6 +55,7 @@ public static class AsBuiltJsonOutput
             ["expected"] = match.ExpectedCount,
             ["unexpected"] = match.Unexpected.Count,
             ["missing"] = match.Missing.Count,
+            ["echoes"] = match.Echoes.Count,
         };
     }
 

@@ -13,6 +13,7 @@ public static class AsBuiltWording
         ArgumentNullException.ThrowIfNull(match);
         ArgumentNullException.ThrowIfNull(unit);
         if (match.Entry is { } entry) return $"expected: {entry.Name} at {unit.Format(entry.DistanceMeters, 1)}";
+        if (match.BeyondFullReflection is { } wall) return $"echo beyond the {EventWording.KindWords(wall.Kind)} at {unit.Format(wall.DistanceMeters)}, not on the cable";
         if (match.NearbyEntry is { } near) return $"UNEXPECTED (at listed {near.Name}, which should not look like this)";
         return "UNEXPECTED";
     }
@@ -50,6 +51,8 @@ public static class AsBuiltWording
             lines.Add($"not found   {Missing(missing, unit)}");
         foreach (var m in match.Events.Where(e => e.Expected))
             lines.Add($"expected    {m.Entry!.Name} at {unit.Format(m.Entry.DistanceMeters, 1)}: {EventWording.KindWords(m.Event.Kind)} at {unit.Format(m.Event.DistanceMeters)}");
+        if (match.Echoes.Count > 0)
+            lines.Add($"echoes      {Count(match.Echoes.Count, "unlisted event")} beyond an open or short: re-reflections, not places on the cable");
         return lines;
     }
 

@@ -6,8 +6,11 @@ namespace CableFault.Workflows;
 /// <param name="List">The list used.</param>
 public sealed record AsBuiltMatch(IReadOnlyList<AsBuiltEventMatch> Events, IReadOnlyList<AsBuiltMissing> Missing, AsBuiltList List)
 {
-    /// <summary>Events that are not on the list: these are the ones to look at.</summary>
-    public IReadOnlyList<AsBuiltEventMatch> Unexpected => Events.Where(e => !e.Expected).ToList();
+    /// <summary>Events on the cable that are not on the list: these are the ones to look at.</summary>
+    public IReadOnlyList<AsBuiltEventMatch> Unexpected => Events.Where(e => e.Unexpected).ToList();
+
+    /// <summary>Unlisted events beyond an open or short: echoes of earlier events, not places on the cable.</summary>
+    public IReadOnlyList<AsBuiltEventMatch> Echoes => Events.Where(e => !e.Expected && e.BeyondFullReflection is not null).ToList();
 
     /// <summary>How many listed features were found as expected.</summary>
     public int ExpectedCount => Events.Count(e => e.Expected);

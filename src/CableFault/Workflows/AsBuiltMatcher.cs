@@ -68,6 +68,10 @@ public static class AsBuiltMatcher
             entryTaken[pair.Entry] = true;
         }
 
+        // Past an open or short nothing of the cable is seen; a located tap's branch ends are opens off the main line,
+        // so with a tap in the run no such wall is assumed.
+        bool tapped = events.Any(e => e.Kind == EventKind.Tap);
+        var wall = tapped ? null : events.Where(e => e.Kind is EventKind.Open or EventKind.Short).MinBy(e => e.DistanceMeters);
         var matched = new List<AsBuiltEventMatch>(events.Count);
         for (int i = 0; i < events.Count; i++)
         {
@@ -75,13 +79,10 @@ public static class AsBuiltMatcher
             if (eventTo[i] is null)
                 nearby = entries.Where((entry, j) => !entryTaken[j] && Math.Abs(events[i].DistanceMeters - entry.DistanceMeters) <= GateMeters(entry, events[i]))
                     .MinBy(entry => Math.Abs(events[i].DistanceMeters - entry.DistanceMeters));
-            matched.Add(new AsBuiltEventMatch(events[i], eventTo[i] is int j ? entries[j] : null, offsets[i], nearby));
+            var behind = eventTo[i] is null && wall is not null && events[i].DistanceMeters > wall.DistanceMeters ? wall : null;
+            matched.Add(new AsBuiltEventMatch(events[i], eventTo[i] is int j ? entries[j] : null, offsets[i], nearby, behind));
         }
 
-        // Past an open or short nothing of the cable is seen; a located tap's branch ends are opens off the main line,
-        // so with a tap in the run no such wall is assumed.
-        bool tapped = events.Any(e => e.Kind == EventKind.Tap);
-        var wall = tapped ? null : events.Where(e => e.Kind is EventKind.Open or EventKind.Short).MinBy(e => e.DistanceMeters);
         var missing = new List<AsBuiltMissing>();
         for (int j = 0; j < entries.Count; j++)
         {

@@ -142,6 +142,19 @@ public sealed class AsBuiltMatcherTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void AnEventPastTheOpenEndIsAnEchoNotAFinding()
+    {
+        // Nothing travels past a full reflection (ρ = +1): an event found beyond it is a re-reflection.
+        LocatedEvent open = new(20, 0.4, EventKind.Open, 1, null, null, 1, 0);
+        LocatedEvent later = new(40, 0.8, EventKind.Unknown, 0.02, null, null, 0.5, 0);
+        var match = AsBuiltMatcher.Match([open, later], new AsBuiltList([Entry("end", 20)]));
+        Assert.True(match.Events[0].Expected);
+        Assert.Same(open, match.Events[1].BeyondFullReflection);
+        Assert.Empty(match.Unexpected);
+        Assert.Single(match.Echoes);
+    }
+
+    [Fact]
     public void EachFeatureTakesOneEventTheClosest()
     {
         var entry = Entry("splice", 10, "S1");
