@@ -24,6 +24,7 @@ internal static class ReportSections
         html.Append("<div class=\"tablewrap\"><table class=\"events\">\n<thead><tr>")
             .Append("<th>#</th><th>Distance (").Append(unit.Symbol).Append(")</th><th>± 1σ (").Append(unit.Symbol).Append(")</th>")
             .Append("<th>What it is</th><th>Size</th><th>ρ</th><th>Confidence</th><th>Status</th>")
+            .Append(input.AsBuilt is null ? "" : "<th>As built</th>")
             .Append("</tr></thead>\n<tbody>\n");
         foreach (var finding in findings.OrderBy(f => f.Number))
         {
@@ -31,12 +32,13 @@ internal static class ReportSections
             int decimals = ReportNumbers.DecimalsFor(unit.FromMeters(e.DistanceSigmaMeters));
             string rowClass = finding.Role switch
             {
-                FindingRole.Attention => "attention", FindingRole.Expected => "expected", FindingRole.BeyondEnd => "echo", _ => "possible",
+                FindingRole.Attention => "attention", FindingRole.Expected or FindingRole.Listed => "expected", FindingRole.BeyondEnd => "echo", _ => "possible",
             };
             string status = finding.Role switch
             {
                 FindingRole.Attention => "<span class=\"tag attention\">attention</span>",
                 FindingRole.Expected => "<span class=\"tag expected\">run end, as recorded</span>",
+                FindingRole.Listed => "<span class=\"tag expected\">listed feature</span>",
                 FindingRole.BeyondEnd => "<span class=\"tag possible\">echo beyond the end</span>",
                 _ => "<span class=\"tag possible\">probable run end</span>",
             };
@@ -52,13 +54,41 @@ internal static class ReportSections
                 .Append("<td data-label=\"Size\">").Append(HtmlText.Escape(SizeCell(e))).Append("</td>")
                 .Append("<td class=\"n\" data-label=\"ρ\">").Append(e.Reflection.ToString("+0.000;−0.000;0.000", CultureInfo.InvariantCulture)).Append("</td>")
                 .Append("<td class=\"n\" data-label=\"Confidence\">").Append(ConfidenceText(e.Confidence)).Append("</td>")
-                .Append("<td data-label=\"Status\">").Append(status).Append("</td>")
-                .Append("</tr>\n");
+                .Append("<td data-label=\"Status\">").Append(status).Append("</td>");
+            if (input.AsBuilt is not null) AsBuiltCell(html, finding, unit);
+            html.Append("</tr>\n");
         }
         html.Append("</tbody></table></div>\n")
+            .Append("<p class=\"note method\">How the distances were found: ")
+            .Append(HtmlText.Escape(Locate.DistanceMethod.Describe(input.Result.Options, input.Settings.Cable, null, unit)))
+            .Append(".</p>\n");
+        if (input.AsBuilt is { } asBuilt)
+        {
+            html.Append("<p class=\"note\">As built: events are held against ")
+                .Append(input.AsBuiltName is null ? "the run's as-built list" : $"the as-built list <span class=\"file\">{HtmlText.Escape(input.AsBuiltName)}</span>")
+                .Append(": an event is expected when a listed feature of a kind it can show as lies within √(T² + (2σ)²) of it, ")
+                .Append("T the listed tolerance and σ the event's ± figure. Anything else is UNEXPECTED.</p>\n");
+            if (asBuilt.Missing.Count > 0)
+            {
+                html.Append("<ul class=\"as-built-missing\">\n");
+                foreach (var missing in asBuilt.Missing)
+                    html.Append("<li>Listed but not found: ").Append(HtmlText.Escape(Locate.AsBuiltWording.Missing(missing, unit))).Append("</li>\n");
+                html.Append("</ul>\n");
+            }
+        }
+        html
             .Append("<p class=\"note\">± is one standard deviation: the fit's timing uncertainty and the velocity-factor uncertainty combined ")
             .Append("(about two in three such figures hold the true distance; double it for 95 %). ρ is the reflection coefficient of the event, ")
             .Append("−1 (short) to +1 (open). Confidence is how sure the analysis is that the event is real and of the kind named.</p>\n");
+    }
+
+    private static void AsBuiltCell(StringBuilder html, ReportFinding finding, DistanceUnit unit)
+    {
+        html.Append("<td class=\"as-built\" data-label=\"As built\">");
+        if (finding.AsBuilt is not { } match) html.Append('—');
+        else if (match.Expected || !match.Unexpected || finding.Role == FindingRole.BeyondEnd) html.Append(HtmlText.Escape(Locate.AsBuiltWording.Status(match, unit)));
+        else html.Append("<span class=\"tag attention\">").Append(HtmlText.Escape(Locate.AsBuiltWording.Status(match, unit))).Append("</span>");
+        html.Append("</td>");
     }
 
     private static string SizeCell(LocatedEvent e)
@@ -211,7 +241,7 @@ internal static class ReportSections
         "option" => "the command line",
         "metadata" => "the trace file",
         "cable" => "the cable type's nominal value",
-        "calibrated" => "a calibration on a run of known length",
+        "calibrated" => "a calibration recorded in the trace file",
         "job" => "the job file",
         "default" => "a default (nothing else given: check it)",
         _ => source,
