@@ -48,7 +48,8 @@ public static class FindingWords
         Workflows.AsBuiltMatch? asBuilt = null)
     {
         ArgumentNullException.ThrowIfNull(events);
-        var matches = asBuilt?.Events.ToDictionary(m => m.Event, ReferenceEqualityComparer.Instance);
+        // By reference: two events with equal values are still two events.
+        var matches = asBuilt?.Events.ToDictionary(m => (object)m.Event, ReferenceEqualityComparer.Instance);
         // A list that names the end decides about the end too; one that does not leaves the "probable end" guess.
         bool listsEnd = asBuilt?.List.Entries.Any(e => e.AcceptedKinds.Any(IsEndLike)) ?? false;
         var byDistance = events.OrderBy(e => e.DistanceMeters).ToList();
@@ -60,7 +61,7 @@ public static class FindingWords
         {
             var e = byDistance[i];
             var role = FindingRole.Attention;
-            var match = matches is not null && matches.TryGetValue(e, out var m) ? (Workflows.AsBuiltEventMatch?)m : null;
+            var match = matches is not null && matches.TryGetValue((object)e, out var m) ? (Workflows.AsBuiltEventMatch?)m : null;
             if (i > lastOnCable)
             {
                 role = FindingRole.BeyondEnd;

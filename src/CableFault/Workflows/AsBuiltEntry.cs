@@ -13,6 +13,14 @@ namespace CableFault.Workflows;
 public sealed record AsBuiltEntry(string Kind, double DistanceMeters, string? Label, double ToleranceMeters,
     IReadOnlyList<EventKind> AcceptedKinds)
 {
+    /// <summary>Recorded distance, m (finite, ≥ 0).</summary>
+    public double DistanceMeters { get; } = double.IsFinite(DistanceMeters) && DistanceMeters >= 0
+        ? DistanceMeters : throw new ArgumentOutOfRangeException(nameof(DistanceMeters), DistanceMeters, "A recorded distance must be finite and ≥ 0 m.");
+
+    /// <summary>Tolerance of the recorded distance, m (finite, &gt; 0), a 95 % bound.</summary>
+    public double ToleranceMeters { get; } = double.IsFinite(ToleranceMeters) && ToleranceMeters > 0
+        ? ToleranceMeters : throw new ArgumentOutOfRangeException(nameof(ToleranceMeters), ToleranceMeters, "A tolerance must be finite and > 0 m.");
+
     /// <summary>How the entry is named to people: "splice", "splice S2", "connector (roof-entry bulkhead)".</summary>
     public string Name
     {

@@ -155,6 +155,14 @@ public sealed class AsBuiltMatcherTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void AnEntryRefusesImpossibleNumbers()
+    {
+        Assert.Throws<ArgumentOutOfRangeException>(() => new AsBuiltEntry("splice", -1, null, 0.5, [EventKind.Inductive]));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new AsBuiltEntry("splice", double.NaN, null, 0.5, [EventKind.Inductive]));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new AsBuiltEntry("splice", 3, null, 0, [EventKind.Inductive]));
+    }
+
+    [Fact]
     public void EachFeatureTakesOneEventTheClosest()
     {
         var entry = Entry("splice", 10, "S1");
