@@ -32,13 +32,14 @@ public static class ReportCommand
         var historyRun = new Option<string?>("--run") { Description = "Run ID in the history database: its current baseline is used for the repair check (unless --baseline is given) and its earlier measurements are listed." };
         var db = HistoryCommand.DbOption();
         var asBuilt = new AsBuiltOptions();
+        var referenceKind = CheckOptions.ReferenceKind();
 
         var command = new Command("report",
             "Write one self-contained HTML report of a measurement: job header, summary, plots, event table, settings and cautions.\n\n" +
             "Examples:\n  cablefault report traces/quillon-bay/mast-feeder-damaged.csv --job job.json -o QB-01.html\n" +
             "  cablefault report traces/quillon-bay/mast-feeder-damaged.csv --as-built traces/quillon-bay/mast-feeder.asbuilt.json -o QB-01.html")
         {
-            trace, output, baseline, job, site, runId, technician, date, length, units, offset, window, historyRun, db,
+            trace, output, baseline, job, site, runId, technician, date, length, units, offset, window, historyRun, db, referenceKind,
         };
         cable.AddTo(command);
         asBuilt.AddTo(command);
@@ -94,6 +95,7 @@ public static class ReportCommand
                     SourceImpedanceOhms = settings.SourceImpedanceOhms,
                     CableDesignation = settings.Cable?.Designation,
                     Library = library,
+                    ReferenceKind = ReferenceKindNames.Parse(parsed.GetValue(referenceKind)!),
                 };
                 try
                 {

@@ -109,17 +109,35 @@ internal static class ReportSections
 
     internal static void RepairCheck(StringBuilder html, int number, RepairCheckPart repair, DistanceUnit unit)
     {
-        Heading(html, number, "Repair check against the baseline", "repair");
-        html.Append("<p>Baseline: <span class=\"file\">").Append(HtmlText.Escape(repair.BaselineName)).Append("</span></p>\n");
+        bool pair = repair.Comparison?.ReferenceKind == Comparison.ReferenceKind.Pair;
+        Heading(html, number, pair ? "Pair check against a reference pair" : "Repair check against the baseline", "repair");
+        html.Append(pair ? "<p>Reference pair (a healthy pair of the same cable): <span class=\"file\">" : "<p>Baseline: <span class=\"file\">")
+            .Append(HtmlText.Escape(repair.BaselineName)).Append("</span></p>\n");
         if (repair.Comparison is not { } comparison)
         {
             html.Append("<p class=\"verdict\">Comparison not available.</p>\n<p>")
                 .Append(HtmlText.Escape(repair.UnavailableReason ?? "No reason was given.")).Append("</p>\n");
             return;
         }
-        html.Append(comparison.Pass
-            ? "<p class=\"verdict pass\">Verdict: PASS — the run matches its baseline within the tolerances below.</p>\n"
-            : "<p class=\"verdict fail\">Verdict: FAIL — the run differs from its baseline beyond the tolerances below.</p>\n");
+        if (pair)
+            html.Append(comparison.Pass
+                ? "<p class=\"verdict pass\">Verdict: PASS — the pair matches the reference pair within the pair tolerances below.</p>\n"
+                : "<p class=\"verdict fail\">Verdict: FAIL — the pair differs from the reference pair beyond the pair tolerances below.</p>\n");
+        else
+            html.Append(comparison.Pass
+                ? "<p class=\"verdict pass\">Verdict: PASS — the run matches its baseline within the tolerances below.</p>\n"
+                : "<p class=\"verdict fail\">Verdict: FAIL — the run differs from its baseline beyond the tolerances below.</p>\n");
+        if (pair && comparison.Spread is { } spread)
+        {
+            html.Append("<p>Pair spread against the reference pair: electrical length ")
+                .Append(spread.LengthDifferenceFraction is double l ? HtmlText.Escape(l.ToString("+0.00 %;−0.00 %;0.00 %", CultureInfo.InvariantCulture)) : "not fitted (no common far end)")
+                .Append(", Z₀ ")
+                .Append(spread.CurrentImpedanceOhms is double z
+                    ? HtmlText.Escape(string.Create(CultureInfo.InvariantCulture, $"{z:0.0} Ω against {spread.ReferenceImpedanceOhms:0.0} Ω ({spread.ImpedanceOffsetFraction:+0.0 %;−0.0 %;0.0 %})"))
+                    : "not estimated")
+                .Append(comparison.FirstDifferenceMeters is double first ? "; the traces first part at " + HtmlText.Escape(unit.Format(first, 2)) : "")
+                .Append(".</p>\n");
+        }
         html.Append("<ul class=\"reasons\">\n");
         foreach (string reason in comparison.Reasons)
             html.Append("<li>").Append(HtmlText.Escape(ReportNumbers.ConvertMeters(reason, unit))).Append("</li>\n");
@@ -130,10 +148,13 @@ internal static class ReportSections
             .ToList();
         var figure = RepairCheckFigures.Build(comparison, listed, unit);
         string data = Convert.ToBase64String(Encoding.UTF8.GetBytes(Plots.FigureRenderer.ToSvg(figure)));
-        html.Append("<figure class=\"figure\">\n<img alt=\"Upper panel: baseline (dashed) and current (solid) traces against distance; ")
-            .Append("lower panel: their difference with the noise band shaded.\" src=\"data:image/svg+xml;base64,").Append(data).Append("\">\n")
-            .Append("<figcaption>Upper: baseline (dashed) and current (solid), each divided by its own incident step and aligned on its edge. ")
-            .Append("Lower: current − baseline; the shaded band (± ").Append(ReportNumbers.Plain(comparison.NoiseBand))
+        string referenceWord = pair ? "reference pair" : "baseline", currentWord = pair ? "suspect pair" : "current";
+        html.Append("<figure class=\"figure\">\n<img alt=\"Upper panel: ").Append(referenceWord).Append(" (dashed) and ").Append(currentWord)
+            .Append(" (solid) traces against distance; lower panel: their difference with the noise band shaded.\" src=\"data:image/svg+xml;base64,").Append(data).Append("\">\n")
+            .Append("<figcaption>Upper: ").Append(referenceWord).Append(" (dashed) and ").Append(currentWord)
+            .Append(" (solid), each divided by its own incident step and aligned on its edge")
+            .Append(pair && comparison.Spread?.LengthFitted == true ? "; the suspect's time axis stretched to line its far end up with the reference pair's. " : ". ")
+            .Append("Lower: ").Append(currentWord).Append(" − ").Append(referenceWord).Append("; the shaded band (± ").Append(ReportNumbers.Plain(comparison.NoiseBand))
             .Append(" of the step) is what noise alone can explain. Lines c1, c2, … are the changes of the table below.</figcaption>\n</figure>\n");
 
         if (listed.Count > 0)
@@ -156,10 +177,16 @@ internal static class ReportSections
             html.Append("</tbody></table></div>\n");
         }
         var t = comparison.Tolerances;
+        if (pair)
+            html.Append("<p class=\"note\">Pair tolerances (pairs of one cable differ in lay length and impedance): a stretch of the suspect's ")
+                .Append("length by up to ").Append(HtmlText.Escape(string.Create(CultureInfo.InvariantCulture, $"±{t.LengthFraction * 100:0.#} %")))
+                .Append(" is absorbed and reported; a Z₀ difference up to ").Append(HtmlText.Escape(string.Create(CultureInfo.InvariantCulture, $"±{(t.ImpedanceFraction ?? 0) * 100:0.#} %")))
+                .Append(" is reported, beyond it fails; the distance tolerance grows to ").Append(HtmlText.Escape(string.Create(CultureInfo.InvariantCulture, $"{t.DistanceFraction * 100:0.##} %")))
+                .Append(" of the distance where that is more than the fixed figure below.</p>\n");
         html.Append("<p class=\"note\">Tolerances: an event may move by up to ").Append(HtmlText.Escape(unit.Format(t.DistanceMeters, 2)))
             .Append(" and its reflection change by up to ").Append(ReportNumbers.Plain(t.Reflection))
             .Append(" of the step; a new or vanished event, or an unexplained difference, larger than that fails the check. ")
-            .Append("Rise times: baseline ").Append(ReportNumbers.Seconds(comparison.BaselineRiseTimeSeconds))
+            .Append(pair ? "Rise times: reference pair " : "Rise times: baseline ").Append(ReportNumbers.Seconds(comparison.BaselineRiseTimeSeconds))
             .Append(", current ").Append(ReportNumbers.Seconds(comparison.CurrentRiseTimeSeconds))
             .Append(comparison.RiseMatched ? " (the sharper one was slowed to match)." : ".").Append("</p>\n");
         if (comparison.Warnings.Count > 0)

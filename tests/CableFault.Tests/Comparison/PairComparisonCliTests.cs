@@ -94,6 +94,19 @@ public class PairComparisonCliTests : IDisposable
     }
 
     [Fact]
+    public void ReportCarriesThePairCheck()
+    {
+        string suspect = Write("pair3.csv", Capture(Pair(OtherOhms, OtherVelocityFactor, rippleSeed: 2, new ShuntResistor(500), 30), 1.5e-3, 14, "pair 3"));
+        string html = Path.Combine(_folder, "pair3.html");
+        var result = CliRunner.Run("report", suspect, "--baseline", Reference(), "--reference-kind", "pair", "-o", html);
+        Assert.True(result.ExitCode == 1, result.Output + result.Error); // the report is written; the check inside it failed
+        string text = File.ReadAllText(html);
+        Assert.Contains("Pair check against a reference pair", text);
+        Assert.Contains("Verdict: FAIL — the pair differs from the reference pair", text);
+        Assert.Contains("Pair spread against the reference pair: electrical length +1.5", text);
+    }
+
+    [Fact]
     public void UnknownReferenceKindIsUsageError()
     {
         var result = CliRunner.Run("compare", "a.csv", "b.csv", "--reference-kind", "neighbour");
