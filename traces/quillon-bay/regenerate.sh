@@ -12,11 +12,19 @@ sim() { # network, output, source ohms, seed, extra...
 }
 sim mast-feeder.network.json          mast-feeder.csv          50  11 --meta "date=2025-03-14"
 sim mast-feeder-damaged.network.json  mast-feeder-damaged.csv  50  12
+# The damaged feeder measured again from the mast head (the network reversed), for locate --from-both-ends.
+sim mast-feeder-damaged-from-mast.network.json mast-feeder-damaged-from-mast.csv 50 15
 sim mast-feeder-repaired.network.json mast-feeder-repaired.csv 50  13 --meta "date=2026-11-30"
 sim mast-feeder.network.json          .vna-scratch.csv         50  14 --s1p "$here/mast-feeder-vna.s1p" --f-max-mhz 2000 --points 2000
 rm -f "$here/.vna-scratch.csv"
 sim camera-drop.network.json          camera-drop.csv          75  21
+# The same drop measured through a 2 m patch lead: distances start at the lead's far connector (--lead-length).
+sim camera-drop-with-lead.network.json camera-drop-with-lead.csv 75  22
 sim sensor-pair.network.json          sensor-pair.csv          100 31
+# The same pair as an instrument that stores no cable setting would record it: no vf or cable line, so locate
+# must work with an unknown VF (--insulation).
+sim sensor-pair.network.json          sensor-pair-novf.csv     100 32
+sed -i '/^# \(vf\|cable\)=/d' "$here/sensor-pair-novf.csv"
 # Two pairs of one 4-pair telemetry cable, captured in one session with the instrument set up for the cable
 # (its nominal VF, Z0 and loss), as a technician compares a suspect pair against a healthy one.
 pairs=(--duration-ns 1450 --meta "vf=0.68" --meta "z0=100" --meta "cable=CAT5E" --meta "date=2026-11-29")
