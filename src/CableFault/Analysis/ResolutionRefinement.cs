@@ -14,6 +14,10 @@ internal static class ResolutionRefinement
     /// (each model run then costs about five times as much, and this stage makes few runs).</summary>
     internal const double MaximumRiseTimesPerWindow = 1000;
 
+    /// <summary>Shortest section round trip, in effective rise times, accepted in place of a lumped spot: the separation
+    /// at which two equal edges are still resolved (half of v·t_r/2 one way).</summary>
+    internal const double MinimumSectionRiseTimes = 0.5;
+
     /// <summary>Iteration limit of the refit and of each section trial (warm started from the selected model).</summary>
     private const int Iterations = 20;
 
@@ -55,6 +59,10 @@ internal static class ResolutionRefinement
                 var free = FreeAround(candidate, i - 1, i + 2);
                 var fit = ModelFitter.Fit(candidate, fine, variance, free, Iterations, cancellation);
                 trials++;
+                // A section shorter than half the sharper rise is still a lumped spot to these data (two edges closer
+                // than that are not told apart); the extra parameters would only soak up edge-shape misfit.
+                double length = fit.Model.Events[i + 1].RoundTripSeconds - fit.Model.Events[i].RoundTripSeconds;
+                if (length < MinimumSectionRiseTimes * fineRiseSeconds) continue;
                 double bic = Bic(fit);
                 if (bic < bestBic - ModelSelection.EvidenceMargin && (winner is null || bic < winner.Bic)) winner = new RunModelFit(fit, bic);
             }
