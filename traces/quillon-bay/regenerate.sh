@@ -17,6 +17,11 @@ sim mast-feeder.network.json          .vna-scratch.csv         50  14 --s1p "$he
 rm -f "$here/.vna-scratch.csv"
 sim camera-drop.network.json          camera-drop.csv          75  21
 sim sensor-pair.network.json          sensor-pair.csv          100 31
+# Two pairs of one 4-pair telemetry cable, captured in one session with the instrument set up for the cable
+# (its nominal VF, Z0 and loss), as a technician compares a suspect pair against a healthy one.
+pairs=(--duration-ns 1450 --meta "vf=0.68" --meta "z0=100" --meta "cable=CAT5E" --meta "date=2026-11-29")
+sim sensor-cable-pair1.network.json   sensor-cable-pair1.csv   100 41 "${pairs[@]}"
+sim sensor-cable-pair3.network.json   sensor-cable-pair3.csv   100 43 "${pairs[@]}"
 "${cli[@]}" simulate "$here/mast-feeder-damaged.network.json" --rise-time-ns 0.5 --noise-mv 1 --seed 12 \
     -o "$here/.preview.csv" --png "$here/mast-feeder-damaged.png"
 rm -f "$here/.preview.csv"

@@ -26,6 +26,7 @@ public static class LocateCommand
         };
         var cable = new CableSettingOptions();
         var field = new FieldOptions();
+        var asBuilt = new AsBuiltOptions();
         var units = CommonOptions.Units();
         var format = new Option<string>("--format") { Description = "text (a table) or json (DESIGN.md §4 contract; an array of those objects for several traces).", DefaultValueFactory = _ => "text" }
             .AcceptOnlyFromAmong("text", "json");
@@ -40,12 +41,14 @@ public static class LocateCommand
             "Find and classify every event on the run: distance from the connector with a ± figure, kind, size and confidence. " +
             "Several traces (files, folders, patterns) are located in parallel and summarised; a bad one is reported and skipped, and the exit code is then 2.\n\n" +
             "Examples:\n  cablefault locate traces/quillon-bay/mast-feeder-damaged.csv --cable RG-213 --png damaged.png\n" +
-            "  cablefault locate traces/quillon-bay --events-csv events.csv")
+            "  cablefault locate traces/quillon-bay --events-csv events.csv\n" +
+            "  cablefault locate traces/quillon-bay/mast-feeder-damaged.csv --cable RG-213 --as-built traces/quillon-bay/mast-feeder.asbuilt.json")
         {
             traces, units, format, offset, window, png, svg, eventsCsv, jobs,
         };
         cable.AddTo(command);
         field.AddTo(command);
+        asBuilt.AddTo(command);
         command.SetAction(parsed =>
         {
             var paths = parsed.GetValue(traces)!;
@@ -58,6 +61,8 @@ public static class LocateCommand
             double? offsetSeconds = parsed.GetValue(offset) is double ns ? ns * 1e-9 : null;
 
             var insulation = field.InsulationClass(parsed);
+            var list = asBuilt.Load(parsed);
+            string? listName = parsed.GetValue(asBuilt.File)?.Name;
             EventsCsv.Entry Locate(string path, Action<string> warn, bool timingSigmaOnly = false)
             {
                 if (BatchInputs.ProblemBeforeReading(path) is string problem) throw new InputException(problem);
@@ -81,20 +86,32 @@ public static class LocateCommand
                 if (lead is not null) options = lead.Shift(options);
                 var result = Locator.Locate(loaded.Trace, options);
                 if (lead is not null) result = lead.DropLeadEvents(result);
-                return new EventsCsv.Entry(path, loaded.Name, loaded.Trace.MetadataOrNull("run"), result);
+                string method = DistanceMethod.Describe(result.Options, settings.Cable, lead, unit);
+                return new EventsCsv.Entry(path, loaded.Name, loaded.Trace.MetadataOrNull("run"), result, method);
             }
 
             if (parsed.GetValue(field.BothEnds))
             {
+                if (list is not null)
+                    throw new InputException("--as-built marks the events of single-ended traces; leave it out with --from-both-ends, or locate each end's trace on its own with it");
                 if (paths.Length != 2 || !paths.All(File.Exists))
                     throw new InputException("--from-both-ends takes exactly two trace files: the one from end A, then the one from end B");
                 var (lengthMeters, lengthSigmaMeters) = field.LengthMeters(parsed, unit);
                 var a = Locate(paths[0], context.Warn, timingSigmaOnly: true);
                 var b = Locate(paths[1], context.Warn, timingSigmaOnly: true);
                 var pair = BothEndsLocation.Combine(a.Result, b.Result, lengthMeters, lengthSigmaMeters);
-                context.Output.Write(json
-                    ? BothEndsLocate.Json(pair, a.TraceName, b.TraceName, unit) + Environment.NewLine
-                    : BothEndsLocate.Text(pair, a.TraceName, b.TraceName, a.Result.Options.VelocityFactor, unit));
+                string method = DistanceMethod.BothEnds(lengthMeters, lengthSigmaMeters, unit);
+                if (json)
+                {
+                    var node = JsonNode.Parse(BothEndsLocate.Json(pair, a.TraceName, b.TraceName, unit))!.AsObject();
+                    node["distance_method"] = method;
+                    context.Output.WriteLine(node.ToJsonString(JsonOptions));
+                }
+                else
+                {
+                    context.Output.Write(BothEndsLocate.Text(pair, a.TraceName, b.TraceName, a.Result.Options.VelocityFactor, unit));
+                    context.Output.WriteLine($"distances: {method}");
+                }
                 return CliApp.Success;
             }
             if (parsed.GetValue(field.Length) is not null)
@@ -104,15 +121,18 @@ public static class LocateCommand
             {
                 var located = Locate(paths[0], context.Warn);
                 bool ranged = VelocityRangeOutput.Applies(located.Result);
+                var match = list is null ? null : AsBuiltMatcher.Match(located.Result, list);
                 if (json)
                 {
                     var node = LocateJson.ToNode(located.Result, located.TraceName, unit);
+                    node["distance_method"] = located.Method;
                     if (ranged) VelocityRangeOutput.AddJson(node, located.Result, insulation);
+                    if (match is not null) AsBuiltJsonOutput.Add(node, match, unit, listName);
                     context.Output.WriteLine(node.ToJsonString(JsonOptions));
                 }
                 else
                 {
-                    context.Output.Write(LocateText.Render(located.Result, located.TraceName, unit));
+                    context.Output.Write(LocateText.Render(located.Result, located.TraceName, unit, match, located.Method));
                     if (ranged) context.Output.Write(VelocityRangeOutput.Text(located.Result, insulation, unit));
                 }
                 WriteEventsCsv(parsed.GetValue(eventsCsv), [located], unit, context);
@@ -131,11 +151,13 @@ public static class LocateCommand
             var outcomes = BatchRunner.Run(inputs, degree, (path, warn) =>
                 Locate(path, w => warn(BatchRunner.Named(w, path, Path.GetFileName(path)))), context, progress);
 
-            if (json) context.Output.WriteLine(RenderJsonArray(outcomes, unit, insulation));
+            // One as-built list applies to every trace: useful for repeated measurements of the same run.
+            if (json) context.Output.WriteLine(RenderJsonArray(outcomes, unit, insulation, list, listName));
             else
             {
                 foreach (var done in outcomes.Where(o => o.Succeeded))
-                    context.Output.WriteLine(LocateText.Render(done.Value!.Result, done.Path, unit));
+                    context.Output.WriteLine(LocateText.Render(done.Value!.Result, done.Path, unit,
+                        list is null ? null : AsBuiltMatcher.Match(done.Value!.Result, list), done.Value!.Method));
                 context.Output.Write(BatchSummary.Render(
                     outcomes.Select(o => new BatchSummary.Row(o.Path, o.Value?.Run, o.Value?.Result)).ToList(), unit));
             }
@@ -149,7 +171,8 @@ public static class LocateCommand
 
     private static readonly JsonSerializerOptions JsonOptions = new() { WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
 
-    private static string RenderJsonArray(IReadOnlyList<BatchRunner.Outcome<EventsCsv.Entry>> outcomes, DistanceUnit unit, Cables.InsulationClass insulation)
+    private static string RenderJsonArray(IReadOnlyList<BatchRunner.Outcome<EventsCsv.Entry>> outcomes, DistanceUnit unit, Cables.InsulationClass insulation,
+        AsBuiltList? list, string? listName)
     {
         var array = new JsonArray();
         foreach (var outcome in outcomes)
@@ -158,7 +181,9 @@ public static class LocateCommand
             {
                 var node = LocateJson.ToNode(located.Result, located.TraceName, unit);
                 node["path"] = outcome.Path;
+                node["distance_method"] = located.Method;
                 if (VelocityRangeOutput.Applies(located.Result)) VelocityRangeOutput.AddJson(node, located.Result, insulation);
+                if (list is not null) AsBuiltJsonOutput.Add(node, AsBuiltMatcher.Match(located.Result, list), unit, listName);
                 array.Add(node);
             }
             else

@@ -31,14 +31,18 @@ public static class ReportCommand
         var units = CommonOptions.Units();
         var historyRun = new Option<string?>("--run") { Description = "Run ID in the history database: its current baseline is used for the repair check (unless --baseline is given) and its earlier measurements are listed." };
         var db = HistoryCommand.DbOption();
+        var asBuilt = new AsBuiltOptions();
+        var referenceKind = CheckOptions.ReferenceKind();
 
         var command = new Command("report",
             "Write one self-contained HTML report of a measurement: job header, summary, plots, event table, settings and cautions.\n\n" +
-            "Example:\n  cablefault report traces/quillon-bay/mast-feeder-damaged.csv --job job.json -o QB-01.html")
+            "Examples:\n  cablefault report traces/quillon-bay/mast-feeder-damaged.csv --job job.json -o QB-01.html\n" +
+            "  cablefault report traces/quillon-bay/mast-feeder-damaged.csv --as-built traces/quillon-bay/mast-feeder.asbuilt.json -o QB-01.html")
         {
-            trace, output, baseline, job, site, runId, technician, date, length, units, offset, window, historyRun, db,
+            trace, output, baseline, job, site, runId, technician, date, length, units, offset, window, historyRun, db, referenceKind,
         };
         cable.AddTo(command);
+        asBuilt.AddTo(command);
         command.SetAction(parsed =>
         {
             var unit = DistanceUnit.Parse(parsed.GetValue(units));
@@ -91,6 +95,7 @@ public static class ReportCommand
                     SourceImpedanceOhms = settings.SourceImpedanceOhms,
                     CableDesignation = settings.Cable?.Designation,
                     Library = library,
+                    ReferenceKind = ReferenceKindNames.Parse(parsed.GetValue(referenceKind)!),
                 };
                 try
                 {
@@ -104,12 +109,19 @@ public static class ReportCommand
                 }
             }
 
-            var input = new ReportInput(sheet, loaded.Name, result, settings, unit, DateTimeOffset.UtcNow, Version(), repair, history);
+            // The list: --as-built, else the job file's "as_built" (a path relative to the job file).
+            FileInfo? listFile = parsed.GetValue(asBuilt.File);
+            if (listFile is null && fromFile.AsBuiltFile is string relative && parsed.GetValue(job) is FileInfo jobOf)
+                listFile = new FileInfo(Path.Combine(jobOf.DirectoryName ?? ".", relative));
+            var list = listFile is null ? null : AsBuiltOptions.Load(listFile);
+            var match = list is null ? null : Workflows.AsBuiltMatcher.Match(result, list);
+
+            var input = new ReportInput(sheet, loaded.Name, result, settings, unit, DateTimeOffset.UtcNow, Version(), repair, history, match, listFile?.Name);
             string html = HtmlReport.Render(input);
             var target = parsed.GetValue(output)!;
             AtomicFile.WriteText(target.FullName, writer => writer.Write(html));
             context.Error.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"wrote {target.Name}: {result.Events.Count} event(s), {html.Length / 1024.0:0} kB"));
+                $"wrote {target.Name}: {result.Events.Count} event(s){(match is null ? "" : $" ({match.Unexpected.Count} unexpected, {match.ExpectedCount} as listed, {match.Missing.Count} listed not found)")}, {html.Length / 1024.0:0} kB"));
             if (repair?.Comparison is { Pass: false })
             {
                 context.Error.WriteLine("repair check: FAIL (see the report)");

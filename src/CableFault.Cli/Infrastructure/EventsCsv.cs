@@ -10,8 +10,9 @@ namespace CableFault.Cli.Infrastructure;
 /// </summary>
 public static class EventsCsv
 {
-    /// <summary>One located trace: the path as given, the file name, the run title and the result.</summary>
-    public sealed record Entry(string Path, string TraceName, string? Run, LocateResult Result);
+    /// <summary>One located trace: the path as given, the file name, the run title, the result and, when known, how
+    /// its distances were worked out (<see cref="Reporting.Locate.DistanceMethod"/>).</summary>
+    public sealed record Entry(string Path, string TraceName, string? Run, LocateResult Result, string? Method = null);
 
     /// <summary>Writes the header and one row per event (a trace with no events gets no rows).</summary>
     public static void Write(IEnumerable<Entry> entries, DistanceUnit unit, TextWriter writer)

@@ -39,10 +39,19 @@ public static class FindingWords
     };
 
     /// <summary>Numbers the events by distance and orders them: attention first (worst kind first, then nearest),
-    /// then possible ends, then expected ones, then echoes beyond an open or short.</summary>
-    public static IReadOnlyList<ReportFinding> Rank(IReadOnlyList<LocatedEvent> events, double? expectedLengthMeters)
+    /// then possible ends, then listed features, then the recorded end, then echoes beyond an open or short.</summary>
+    /// <param name="events">The located events.</param>
+    /// <param name="expectedLengthMeters">The run's recorded length, m, or null.</param>
+    /// <param name="asBuilt">The events held against the run's as-built list (the same events), or null: an event not
+    /// on the list needs attention, one on it does not.</param>
+    public static IReadOnlyList<ReportFinding> Rank(IReadOnlyList<LocatedEvent> events, double? expectedLengthMeters,
+        Workflows.AsBuiltMatch? asBuilt = null)
     {
         ArgumentNullException.ThrowIfNull(events);
+        // By reference: two events with equal values are still two events.
+        var matches = asBuilt?.Events.ToDictionary(m => (object)m.Event, ReferenceEqualityComparer.Instance);
+        // A list that names the end decides about the end too; one that does not leaves the "probable end" guess.
+        bool listsEnd = asBuilt?.List.Entries.Any(e => e.AcceptedKinds.Any(IsEndLike)) ?? false;
         var byDistance = events.OrderBy(e => e.DistanceMeters).ToList();
         // Past a full reflection nothing of the cable can be seen: anything later is an echo of what came before.
         var wall = byDistance.FirstOrDefault(e => e.Kind is EventKind.Open or EventKind.Short);
@@ -52,9 +61,21 @@ public static class FindingWords
         {
             var e = byDistance[i];
             var role = FindingRole.Attention;
+            var match = matches is not null && matches.TryGetValue((object)e, out var m) ? (Workflows.AsBuiltEventMatch?)m : null;
             if (i > lastOnCable)
             {
                 role = FindingRole.BeyondEnd;
+            }
+            else if (match is { Expected: true })
+            {
+                role = FindingRole.Listed;
+                if (IsEndLike(e.Kind) && expectedLengthMeters is double recorded
+                    && Math.Abs(e.DistanceMeters - recorded) <= ExpectedEndSigmas * e.DistanceSigmaMeters + ExpectedEndLengthFraction * recorded)
+                    role = FindingRole.Expected;
+            }
+            else if (match is not null && (listsEnd || !IsEndLike(e.Kind)))
+            {
+                role = FindingRole.Attention;
             }
             else if (IsEndLike(e.Kind))
             {
@@ -68,7 +89,7 @@ public static class FindingWords
                     role = FindingRole.PossibleEnd;
                 }
             }
-            findings.Add(new ReportFinding(i + 1, e, Severity(e.Kind), role));
+            findings.Add(new ReportFinding(i + 1, e, Severity(e.Kind), role, match));
         }
         return findings
             .OrderBy(f => f.Role)
@@ -103,6 +124,9 @@ public static class FindingWords
         string what = size.Length > 0 ? $"{Name(e.Kind)} ({size})" : Name(e.Kind);
         return finding.Role switch
         {
+            FindingRole.Listed when finding.AsBuilt?.Entry is { } entry => $"{what} at {where} from the connector: the listed {entry.Name}, as expected",
+            FindingRole.Attention when finding.AsBuilt is { NearbyEntry: { } near } => $"Unexpected: {LowerFirst(what)} at {where} from the connector, where the {near.Name} is listed (it should not look like this)",
+            FindingRole.Attention when finding.AsBuilt is not null => $"Unexpected: {LowerFirst(what)} at {where} from the connector (not on the as-built list)",
             FindingRole.Expected => $"The run ends as recorded: {what.ToLowerInvariant()} at {where} from the connector",
             FindingRole.PossibleEnd => $"{what} at {where} from the connector — the end of the run, unless the run is longer",
             FindingRole.BeyondEnd => $"Echo at {where}, beyond the end: a re-reflection, not a place on the cable",
@@ -126,6 +150,13 @@ public static class FindingWords
     /// <summary>The summary when nothing was found beyond the blind zone.</summary>
     public static string NothingFound(double blindZoneMeters, DistanceUnit unit) =>
         $"No reflection found beyond the first {unit.Format(blindZoneMeters, 2)}: the run looks continuous and matched over the length the record covers";
+
+    /// <summary>The summary when an as-built list was given and every event is on it.</summary>
+    public static string NothingUnexpected(int listedCount) =>
+        $"Nothing unexpected: every event found is a feature on the as-built list ({Locate.AsBuiltWording.Count(listedCount, "listed feature")} found)";
+
+    /// <summary>The first letter in lower case only, so that unit symbols such as Ω keep their case.</summary>
+    private static string LowerFirst(string text) => text.Length == 0 ? text : char.ToLowerInvariant(text[0]) + text[1..];
 
     private static bool IsEndLike(EventKind kind) => kind is EventKind.Open or EventKind.Short or EventKind.Termination;
 }

@@ -14,7 +14,7 @@ public static class HtmlReport
     public static string Render(ReportInput input)
     {
         ArgumentNullException.ThrowIfNull(input);
-        var findings = FindingWords.Rank(input.Result.Events, input.Job.ExpectedLengthMeters);
+        var findings = FindingWords.Rank(input.Result.Events, input.Job.ExpectedLengthMeters, input.AsBuilt);
         var html = new StringBuilder(64 * 1024);
         string runId = string.IsNullOrWhiteSpace(input.Job.RunId) ? "Cable run" : input.Job.RunId!;
         html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
@@ -75,10 +75,19 @@ public static class HtmlReport
     {
         bool calm = findings.All(f => f.Role != FindingRole.Attention);
         html.Append("<section class=\"summary").Append(calm ? " calm" : "").Append("\" aria-label=\"Summary\">\n<p class=\"headline\">");
-        html.Append(HtmlText.Escape(findings.Count > 0
-            ? FindingWords.Headline(findings[0], input.Unit)
-            : FindingWords.NothingFound(input.Result.BlindZoneMeters, input.Unit))).Append('.');
-        if (findings.Count > 0) html.Append(" <span class=\"ref\">(event ").Append(findings[0].Number).Append(")</span>");
+        var asBuilt = input.AsBuilt;
+        // With an as-built list, listed features are not findings: the headline is the first unexpected event, or says
+        // that there is none.
+        bool nothingUnexpected = asBuilt is not null && findings.Count > 0 && calm && findings[0].Role is FindingRole.Listed or FindingRole.Expected;
+        if (nothingUnexpected)
+            html.Append(HtmlText.Escape(FindingWords.NothingUnexpected(asBuilt!.ExpectedCount))).Append('.');
+        else
+        {
+            html.Append(HtmlText.Escape(findings.Count > 0
+                ? FindingWords.Headline(findings[0], input.Unit)
+                : FindingWords.NothingFound(input.Result.BlindZoneMeters, input.Unit))).Append('.');
+            if (findings.Count > 0) html.Append(" <span class=\"ref\">(event ").Append(findings[0].Number).Append(")</span>");
+        }
         html.Append("</p>\n");
         if (input.RepairCheck is { Comparison: { } comparison })
         {
@@ -86,7 +95,8 @@ public static class HtmlReport
             html.Append("<p class=\"repair-line\"><strong>Repair check: ").Append(comparison.Pass ? "PASS" : "FAIL").Append(".</strong>")
                 .Append(HtmlText.Escape(first)).Append(" <span class=\"ref\">(see the repair check)</span></p>\n");
         }
-        var others = findings.Skip(1).Where(f => f.Role != FindingRole.BeyondEnd).ToList();
+        var others = findings.Skip(nothingUnexpected ? 0 : 1)
+            .Where(f => f.Role != FindingRole.BeyondEnd && f.AsBuilt?.Expected != true).ToList();
         if (others.Count > 0)
         {
             html.Append("<ul class=\"others\">\n");
@@ -94,6 +104,19 @@ public static class HtmlReport
                 html.Append("<li>").Append(HtmlText.Escape(FindingWords.Headline(finding, input.Unit)))
                     .Append(". <span class=\"ref\">(event ").Append(finding.Number).Append(")</span></li>\n");
             html.Append("</ul>\n");
+        }
+        if (asBuilt is not null)
+        {
+            var listed = findings.Where(f => f.Role == FindingRole.Listed || (f.Role == FindingRole.Expected && f.AsBuilt?.Expected == true))
+                .OrderBy(f => f.Number).ToList();
+            if (listed.Count > 0 && !nothingUnexpected)
+                html.Append("<p class=\"as-built-found\">").Append(HtmlText.Escape(
+                        $"{Locate.AsBuiltWording.Count(listed.Count, "listed feature")} found as expected: " +
+                        string.Join("; ", listed.Select(f => $"{f.AsBuilt!.Entry!.Name} at {input.Unit.Format(f.Event.DistanceMeters, 2)}"))))
+                    .Append(". <span class=\"ref\">(as-built list)</span></p>\n");
+            foreach (var missing in asBuilt.Missing)
+                html.Append("<p class=\"as-built-missing\"><strong>Listed but not found:</strong> ")
+                    .Append(HtmlText.Escape(Locate.AsBuiltWording.Missing(missing, input.Unit))).Append(".</p>\n");
         }
         int echoes = findings.Skip(1).Count(f => f.Role == FindingRole.BeyondEnd);
         if (echoes > 0)

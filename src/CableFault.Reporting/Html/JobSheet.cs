@@ -21,6 +21,7 @@ namespace CableFault.Reporting.Html;
 /// <param name="ImpedanceOhms">Cable Z₀ the technician set for this job, Ω, or null.</param>
 /// <param name="Instrument">Instrument name and settings as label/value pairs, in the order given.</param>
 /// <param name="Notes">Free notes for the next crew.</param>
+/// <param name="AsBuiltFile">Path of the run's as-built list as written in the job file (relative to the job file), or null.</param>
 public sealed record JobSheet(
     string? Site = null,
     string? RunId = null,
@@ -33,7 +34,8 @@ public sealed record JobSheet(
     double? VelocityFactor = null,
     double? ImpedanceOhms = null,
     IReadOnlyList<KeyValuePair<string, string>>? Instrument = null,
-    string? Notes = null)
+    string? Notes = null,
+    string? AsBuiltFile = null)
 {
     /// <summary>An empty sheet.</summary>
     public static JobSheet Empty { get; } = new();
@@ -74,7 +76,7 @@ public sealed record JobSheet(
             Pick(Technician, fallback.Technician), Pick(MeasuredAt, fallback.MeasuredAt), Pick(Customer, fallback.Customer),
             Pick(WorkOrder, fallback.WorkOrder), ExpectedLengthMeters ?? fallback.ExpectedLengthMeters,
             VelocityFactor ?? fallback.VelocityFactor, ImpedanceOhms ?? fallback.ImpedanceOhms, instrument,
-            Pick(Notes, fallback.Notes));
+            Pick(Notes, fallback.Notes), Pick(AsBuiltFile, fallback.AsBuiltFile));
     }
 
     private static string? Pick(string? mine, string? theirs) => string.IsNullOrWhiteSpace(mine) ? theirs : mine;

@@ -13,7 +13,8 @@ namespace CableFault.Reporting.Html;
 ///   "expected_length_m": 42.5,            // or "expected_length_ft"
 ///   "vf": 0.66, "z0_ohms": 50,
 ///   "instrument": { "name": "bench TDR #2", "averaging": 64, "lead": "1 m launch cable" },
-///   "notes": "..." }
+///   "notes": "...",
+///   "as_built": "mast-feeder.asbuilt.json" }   // the run's as-built list, relative to the job file
 /// </code>
 /// Unknown fields are errors (a misspelt field would otherwise be silently lost); every problem is reported at once.
 /// </summary>
@@ -28,7 +29,7 @@ public static class JobSheetJson
     private static readonly string[] Fields =
     [
         "schema", "site", "run_id", "cable_type", "technician", "measured_at", "customer", "work_order",
-        "expected_length_m", "expected_length_ft", "vf", "z0_ohms", "instrument", "notes",
+        "expected_length_m", "expected_length_ft", "vf", "z0_ohms", "instrument", "notes", "as_built",
     ];
 
     /// <summary>Reads and validates a job file; throws one <see cref="InputException"/> listing every problem.</summary>
@@ -86,7 +87,8 @@ public static class JobSheetJson
                 VelocityFactor: vf,
                 ImpedanceOhms: z0,
                 Instrument: Instrument(root, problems),
-                Notes: Text(root, "notes", problems));
+                Notes: Text(root, "notes", problems),
+                AsBuiltFile: Text(root, "as_built", problems));
             if (problems.Count > 0)
                 throw new InputException($"{sourceName}: {problems.Count} problem{(problems.Count == 1 ? "" : "s")}: {string.Join("; ", problems.Take(8))}{(problems.Count > 8 ? $"; and {problems.Count - 8} more" : "")}");
             return sheet;

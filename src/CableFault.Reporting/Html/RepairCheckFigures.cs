@@ -17,8 +17,9 @@ public static class RepairCheckFigures
         if (!(end > 0)) end = recordEnd;
         double start = -0.03 * end;
         var markers = listed.Select((c, i) => new FigureMarker(c.DistanceMeters, "c" + (i + 1), c.ExceedsTolerance)).ToList();
-        var (overlay, difference) = CompareFigures.Panels(comparison, markers, "Baseline and current trace",
-            "Level (× incident step)", "Difference, current − baseline", shadeBlindZone: false);
+        bool pair = comparison.ReferenceKind == ReferenceKind.Pair;
+        var (overlay, difference) = CompareFigures.Panels(comparison, markers, pair ? "Reference pair and suspect pair" : "Baseline and current trace",
+            "Level (× incident step)", pair ? "Difference, suspect − reference pair" : "Difference, current − baseline", shadeBlindZone: false);
         return new Figure
         {
             Panels = [overlay, difference],

@@ -7,8 +7,9 @@ namespace CableFault.Reporting.Html;
 /// <param name="Event">The located event.</param>
 /// <param name="Severity">Rank for ordering, higher first: how much the finding calls for action.</param>
 /// <param name="Role">Attention, PossibleEnd (the farthest end-like event when the run's length was not recorded),
-/// Expected (the run's recorded end) or BeyondEnd (an echo past an open or short).</param>
-public sealed record ReportFinding(int Number, LocatedEvent Event, int Severity, FindingRole Role);
+/// Listed (a feature of the as-built list), Expected (the run's recorded end) or BeyondEnd (an echo past an open or short).</param>
+/// <param name="AsBuilt">What the as-built list says about the event, or null when no list was given.</param>
+public sealed record ReportFinding(int Number, LocatedEvent Event, int Severity, FindingRole Role, Workflows.AsBuiltEventMatch? AsBuilt = null);
 
 /// <summary>How a finding relates to what the run should look like.</summary>
 public enum FindingRole
@@ -17,6 +18,9 @@ public enum FindingRole
     Attention,
     /// <summary>The farthest open, short or termination when the run's length is unknown: probably its end.</summary>
     PossibleEnd,
+    /// <summary>A known feature of the run (a splice, connector, tap, cable change or end of the as-built list), found
+    /// where and as it should be.</summary>
+    Listed,
     /// <summary>The run's end where the job file says it is.</summary>
     Expected,
     /// <summary>Beyond an open or a short: nothing travels past a full reflection, so this is a re-reflection (an echo

@@ -12,6 +12,9 @@ namespace CableFault.Reporting.Html;
 /// <param name="ToolVersion">CableFault version, for the footer.</param>
 /// <param name="RepairCheck">The repair-check section's content, or null when no baseline was given.</param>
 /// <param name="History">Earlier measurements of the run from the history database, or null when none was asked for.</param>
+/// <param name="AsBuilt">The events held against the run's as-built list (made from <paramref name="Result"/>'s events), or
+/// null when no list was given.</param>
+/// <param name="AsBuiltName">File name of the as-built list, for the document.</param>
 public sealed record ReportInput(
     JobSheet Job,
     string TraceName,
@@ -21,4 +24,6 @@ public sealed record ReportInput(
     DateTimeOffset GeneratedAt,
     string ToolVersion,
     RepairCheckPart? RepairCheck = null,
-    IReadOnlyList<PastCheck>? History = null);
+    IReadOnlyList<PastCheck>? History = null,
+    Workflows.AsBuiltMatch? AsBuilt = null,
+    string? AsBuiltName = null);

@@ -24,6 +24,7 @@ internal static class ReportSections
         html.Append("<div class=\"tablewrap\"><table class=\"events\">\n<thead><tr>")
             .Append("<th>#</th><th>Distance (").Append(unit.Symbol).Append(")</th><th>± 1σ (").Append(unit.Symbol).Append(")</th>")
             .Append("<th>What it is</th><th>Size</th><th>ρ</th><th>Confidence</th><th>Status</th>")
+            .Append(input.AsBuilt is null ? "" : "<th>As built</th>")
             .Append("</tr></thead>\n<tbody>\n");
         foreach (var finding in findings.OrderBy(f => f.Number))
         {
@@ -31,12 +32,13 @@ internal static class ReportSections
             int decimals = ReportNumbers.DecimalsFor(unit.FromMeters(e.DistanceSigmaMeters));
             string rowClass = finding.Role switch
             {
-                FindingRole.Attention => "attention", FindingRole.Expected => "expected", FindingRole.BeyondEnd => "echo", _ => "possible",
+                FindingRole.Attention => "attention", FindingRole.Expected or FindingRole.Listed => "expected", FindingRole.BeyondEnd => "echo", _ => "possible",
             };
             string status = finding.Role switch
             {
                 FindingRole.Attention => "<span class=\"tag attention\">attention</span>",
                 FindingRole.Expected => "<span class=\"tag expected\">run end, as recorded</span>",
+                FindingRole.Listed => "<span class=\"tag expected\">listed feature</span>",
                 FindingRole.BeyondEnd => "<span class=\"tag possible\">echo beyond the end</span>",
                 _ => "<span class=\"tag possible\">probable run end</span>",
             };
@@ -52,13 +54,41 @@ internal static class ReportSections
                 .Append("<td data-label=\"Size\">").Append(HtmlText.Escape(SizeCell(e))).Append("</td>")
                 .Append("<td class=\"n\" data-label=\"ρ\">").Append(e.Reflection.ToString("+0.000;−0.000;0.000", CultureInfo.InvariantCulture)).Append("</td>")
                 .Append("<td class=\"n\" data-label=\"Confidence\">").Append(ConfidenceText(e.Confidence)).Append("</td>")
-                .Append("<td data-label=\"Status\">").Append(status).Append("</td>")
-                .Append("</tr>\n");
+                .Append("<td data-label=\"Status\">").Append(status).Append("</td>");
+            if (input.AsBuilt is not null) AsBuiltCell(html, finding, unit);
+            html.Append("</tr>\n");
         }
         html.Append("</tbody></table></div>\n")
+            .Append("<p class=\"note method\">How the distances were found: ")
+            .Append(HtmlText.Escape(Locate.DistanceMethod.Describe(input.Result.Options, input.Settings.Cable, null, unit)))
+            .Append(".</p>\n");
+        if (input.AsBuilt is { } asBuilt)
+        {
+            html.Append("<p class=\"note\">As built: events are held against ")
+                .Append(input.AsBuiltName is null ? "the run's as-built list" : $"the as-built list <span class=\"file\">{HtmlText.Escape(input.AsBuiltName)}</span>")
+                .Append(": an event is expected when a listed feature of a kind it can show as lies within √(T² + (2σ)²) of it, ")
+                .Append("T the listed tolerance and σ the event's ± figure. Anything else is UNEXPECTED.</p>\n");
+            if (asBuilt.Missing.Count > 0)
+            {
+                html.Append("<ul class=\"as-built-missing\">\n");
+                foreach (var missing in asBuilt.Missing)
+                    html.Append("<li>Listed but not found: ").Append(HtmlText.Escape(Locate.AsBuiltWording.Missing(missing, unit))).Append("</li>\n");
+                html.Append("</ul>\n");
+            }
+        }
+        html
             .Append("<p class=\"note\">± is one standard deviation: the fit's timing uncertainty and the velocity-factor uncertainty combined ")
             .Append("(about two in three such figures hold the true distance; double it for 95 %). ρ is the reflection coefficient of the event, ")
             .Append("−1 (short) to +1 (open). Confidence is how sure the analysis is that the event is real and of the kind named.</p>\n");
+    }
+
+    private static void AsBuiltCell(StringBuilder html, ReportFinding finding, DistanceUnit unit)
+    {
+        html.Append("<td class=\"as-built\" data-label=\"As built\">");
+        if (finding.AsBuilt is not { } match) html.Append('—');
+        else if (match.Expected || !match.Unexpected || finding.Role == FindingRole.BeyondEnd) html.Append(HtmlText.Escape(Locate.AsBuiltWording.Status(match, unit)));
+        else html.Append("<span class=\"tag attention\">").Append(HtmlText.Escape(Locate.AsBuiltWording.Status(match, unit))).Append("</span>");
+        html.Append("</td>");
     }
 
     private static string SizeCell(LocatedEvent e)
@@ -79,17 +109,35 @@ internal static class ReportSections
 
     internal static void RepairCheck(StringBuilder html, int number, RepairCheckPart repair, DistanceUnit unit)
     {
-        Heading(html, number, "Repair check against the baseline", "repair");
-        html.Append("<p>Baseline: <span class=\"file\">").Append(HtmlText.Escape(repair.BaselineName)).Append("</span></p>\n");
+        bool pair = repair.Comparison?.ReferenceKind == Comparison.ReferenceKind.Pair;
+        Heading(html, number, pair ? "Pair check against a reference pair" : "Repair check against the baseline", "repair");
+        html.Append(pair ? "<p>Reference pair (a healthy pair of the same cable): <span class=\"file\">" : "<p>Baseline: <span class=\"file\">")
+            .Append(HtmlText.Escape(repair.BaselineName)).Append("</span></p>\n");
         if (repair.Comparison is not { } comparison)
         {
             html.Append("<p class=\"verdict\">Comparison not available.</p>\n<p>")
                 .Append(HtmlText.Escape(repair.UnavailableReason ?? "No reason was given.")).Append("</p>\n");
             return;
         }
-        html.Append(comparison.Pass
-            ? "<p class=\"verdict pass\">Verdict: PASS — the run matches its baseline within the tolerances below.</p>\n"
-            : "<p class=\"verdict fail\">Verdict: FAIL — the run differs from its baseline beyond the tolerances below.</p>\n");
+        if (pair)
+            html.Append(comparison.Pass
+                ? "<p class=\"verdict pass\">Verdict: PASS — the pair matches the reference pair within the pair tolerances below.</p>\n"
+                : "<p class=\"verdict fail\">Verdict: FAIL — the pair differs from the reference pair beyond the pair tolerances below.</p>\n");
+        else
+            html.Append(comparison.Pass
+                ? "<p class=\"verdict pass\">Verdict: PASS — the run matches its baseline within the tolerances below.</p>\n"
+                : "<p class=\"verdict fail\">Verdict: FAIL — the run differs from its baseline beyond the tolerances below.</p>\n");
+        if (pair && comparison.Spread is { } spread)
+        {
+            html.Append("<p>Pair spread against the reference pair: electrical length ")
+                .Append(spread.LengthDifferenceFraction is double l ? HtmlText.Escape(l.ToString("+0.00 %;−0.00 %;0.00 %", CultureInfo.InvariantCulture)) : "not fitted (no common far end)")
+                .Append(", Z₀ ")
+                .Append(spread.CurrentImpedanceOhms is double z
+                    ? HtmlText.Escape(string.Create(CultureInfo.InvariantCulture, $"{z:0.0} Ω against {spread.ReferenceImpedanceOhms:0.0} Ω ({spread.ImpedanceOffsetFraction:+0.0 %;−0.0 %;0.0 %})"))
+                    : "not estimated")
+                .Append(comparison.FirstDifferenceMeters is double first ? "; the traces first part at " + HtmlText.Escape(unit.Format(first, 2)) : "")
+                .Append(".</p>\n");
+        }
         html.Append("<ul class=\"reasons\">\n");
         foreach (string reason in comparison.Reasons)
             html.Append("<li>").Append(HtmlText.Escape(ReportNumbers.ConvertMeters(reason, unit))).Append("</li>\n");
@@ -100,10 +148,13 @@ internal static class ReportSections
             .ToList();
         var figure = RepairCheckFigures.Build(comparison, listed, unit);
         string data = Convert.ToBase64String(Encoding.UTF8.GetBytes(Plots.FigureRenderer.ToSvg(figure)));
-        html.Append("<figure class=\"figure\">\n<img alt=\"Upper panel: baseline (dashed) and current (solid) traces against distance; ")
-            .Append("lower panel: their difference with the noise band shaded.\" src=\"data:image/svg+xml;base64,").Append(data).Append("\">\n")
-            .Append("<figcaption>Upper: baseline (dashed) and current (solid), each divided by its own incident step and aligned on its edge. ")
-            .Append("Lower: current − baseline; the shaded band (± ").Append(ReportNumbers.Plain(comparison.NoiseBand))
+        string referenceWord = pair ? "reference pair" : "baseline", currentWord = pair ? "suspect pair" : "current";
+        html.Append("<figure class=\"figure\">\n<img alt=\"Upper panel: ").Append(referenceWord).Append(" (dashed) and ").Append(currentWord)
+            .Append(" (solid) traces against distance; lower panel: their difference with the noise band shaded.\" src=\"data:image/svg+xml;base64,").Append(data).Append("\">\n")
+            .Append("<figcaption>Upper: ").Append(referenceWord).Append(" (dashed) and ").Append(currentWord)
+            .Append(" (solid), each divided by its own incident step and aligned on its edge")
+            .Append(pair && comparison.Spread?.LengthFitted == true ? "; the suspect's time axis stretched to line its far end up with the reference pair's. " : ". ")
+            .Append("Lower: ").Append(currentWord).Append(" − ").Append(referenceWord).Append("; the shaded band (± ").Append(ReportNumbers.Plain(comparison.NoiseBand))
             .Append(" of the step) is what noise alone can explain. Lines c1, c2, … are the changes of the table below.</figcaption>\n</figure>\n");
 
         if (listed.Count > 0)
@@ -126,10 +177,16 @@ internal static class ReportSections
             html.Append("</tbody></table></div>\n");
         }
         var t = comparison.Tolerances;
+        if (pair)
+            html.Append("<p class=\"note\">Pair tolerances (pairs of one cable differ in lay length and impedance): a stretch of the suspect's ")
+                .Append("length by up to ").Append(HtmlText.Escape(string.Create(CultureInfo.InvariantCulture, $"±{t.LengthFraction * 100:0.#} %")))
+                .Append(" is absorbed and reported; a Z₀ difference up to ").Append(HtmlText.Escape(string.Create(CultureInfo.InvariantCulture, $"±{(t.ImpedanceFraction ?? 0) * 100:0.#} %")))
+                .Append(" is reported, beyond it fails; the distance tolerance grows to ").Append(HtmlText.Escape(string.Create(CultureInfo.InvariantCulture, $"{t.DistanceFraction * 100:0.##} %")))
+                .Append(" of the distance where that is more than the fixed figure below.</p>\n");
         html.Append("<p class=\"note\">Tolerances: an event may move by up to ").Append(HtmlText.Escape(unit.Format(t.DistanceMeters, 2)))
             .Append(" and its reflection change by up to ").Append(ReportNumbers.Plain(t.Reflection))
             .Append(" of the step; a new or vanished event, or an unexplained difference, larger than that fails the check. ")
-            .Append("Rise times: baseline ").Append(ReportNumbers.Seconds(comparison.BaselineRiseTimeSeconds))
+            .Append(pair ? "Rise times: reference pair " : "Rise times: baseline ").Append(ReportNumbers.Seconds(comparison.BaselineRiseTimeSeconds))
             .Append(", current ").Append(ReportNumbers.Seconds(comparison.CurrentRiseTimeSeconds))
             .Append(comparison.RiseMatched ? " (the sharper one was slowed to match)." : ".").Append("</p>\n");
         if (comparison.Warnings.Count > 0)
@@ -211,7 +268,7 @@ internal static class ReportSections
         "option" => "the command line",
         "metadata" => "the trace file",
         "cable" => "the cable type's nominal value",
-        "calibrated" => "a calibration on a run of known length",
+        "calibrated" => "a calibration recorded in the trace file",
         "job" => "the job file",
         "default" => "a default (nothing else given: check it)",
         _ => source,

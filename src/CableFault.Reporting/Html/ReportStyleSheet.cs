@@ -79,6 +79,7 @@ footer { margin-top: 2.5rem; padding-top: .5rem; border-top: 1px solid var(--rul
   table.events td { display: block; border: none; padding: 0; text-align: left; }
   table.events td:first-child { border: none; }
   table.events td.what { grid-column: 1 / -1; }
+  table.events td.as-built { grid-column: 1 / -1; }
   table.events td[data-label]::before { content: attr(data-label); display: block; font: .72rem var(--sans); color: var(--muted); }
   .settings dd { margin-bottom: .4rem; }
 }

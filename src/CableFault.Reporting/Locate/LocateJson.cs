@@ -60,6 +60,8 @@ public static class LocateJson
                 ["message"] = result.Fit.Message,
             },
             ["warnings"] = new JsonArray(result.Warnings.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
+            // Added to the contract: how the distances were worked out, in words (callers that know more replace it).
+            ["distance_method"] = DistanceMethod.Describe(o, null, null, unit),
         };
         return root;
     }

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using CableFault.Analysis;
+using CableFault.Workflows;
 
 namespace CableFault.Reporting.Locate;
 
@@ -8,7 +9,13 @@ namespace CableFault.Reporting.Locate;
 public static class LocateText
 {
     /// <summary>Renders the result for a terminal.</summary>
-    public static string Render(LocateResult result, string traceName, DistanceUnit unit)
+    /// <param name="result">What the locator found.</param>
+    /// <param name="traceName">Name for the first line.</param>
+    /// <param name="unit">Distance unit.</param>
+    /// <param name="asBuilt">The events held against an as-built list: adds a column and a summary, unexpected first.</param>
+    /// <param name="method">How the distances were worked out (<see cref="DistanceMethod"/>), shown under the header;
+    /// null for what the result's options alone tell.</param>
+    public static string Render(LocateResult result, string traceName, DistanceUnit unit, AsBuiltMatch? asBuilt = null, string? method = null)
     {
         var text = new StringBuilder();
         var c = result.Characteristics;
@@ -19,6 +26,7 @@ public static class LocateText
             $"  VF {o.VelocityFactor:F3} ({o.VelocityFactorSource}, ±{o.VelocityFactorRelativeSigma * 100:0.#} %)   Z0 {o.ImpedanceOhms:0.#} Ω   source {o.SourceImpedanceOhms:0.#} Ω"));
         text.AppendLine(string.Create(inv,
             $"  rise {c.RiseTimeSeconds * 1e9:0.###} ns   noise {c.NoiseRmsVolts * 1e3:0.###} mV RMS   step {c.IncidentAmplitudeVolts:0.###} V   blind zone {unit.Format(result.BlindZoneMeters)}"));
+        text.AppendLine($"  distances: {method ?? DistanceMethod.Describe(o, null, null, unit)}");
         text.AppendLine();
         if (result.Events.Count == 0)
         {
@@ -26,14 +34,22 @@ public static class LocateText
         }
         else
         {
-            text.AppendLine($"  {"#",2}  {"distance (" + unit.Symbol + ")",-22} {"kind",-19} {"ρ",7}  {"size",-16} {"confidence",10}");
+            text.AppendLine($"  {"#",2}  {"distance (" + unit.Symbol + ")",-22} {"kind",-19} {"ρ",7}  {"size",-16} {"confidence",10}{(asBuilt is null ? "" : "  as built")}");
             int index = 1;
             foreach (var e in result.Events)
             {
                 string distance = string.Create(inv, $"{unit.FromMeters(e.DistanceMeters):F2} ± {unit.FromMeters(e.DistanceSigmaMeters):F2}");
+                string status = asBuilt is null ? "" : "  " + AsBuiltWording.Status(asBuilt.Events[index - 1], unit);
                 text.AppendLine(string.Create(inv,
-                    $"  {index++,2}  {distance,-22} {EventWording.KindWords(e.Kind),-19} {e.Reflection,7:+0.000;-0.000}  {EventWording.SizeWords(e),-16} {e.Confidence,9:P0}"));
+                    $"  {index++,2}  {distance,-22} {EventWording.KindWords(e.Kind),-19} {e.Reflection,7:+0.000;-0.000}  {EventWording.SizeWords(e),-16} {e.Confidence,9:P0}{status}"));
             }
+        }
+        if (asBuilt is not null)
+        {
+            text.AppendLine();
+            var lines = AsBuiltWording.Summary(asBuilt, unit);
+            text.AppendLine($"  as-built list{(asBuilt.List.RunId is string run ? $" ({run})" : "")}: {lines[0]}");
+            foreach (string line in lines.Skip(1)) text.AppendLine($"    {line}");
         }
         text.AppendLine();
         var fit = result.Fit;

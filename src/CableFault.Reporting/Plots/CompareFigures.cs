@@ -15,13 +15,17 @@ public static class CompareFigures
         var d = result.DistancesMeters;
         var markers = result.Events.Where(e => e.Kind != EventChangeKind.Unchanged)
             .Select(e => new FigureMarker(e.DistanceMeters, Label(e, unit), e.ExceedsTolerance)).ToList();
-        var (traces, difference) = Panels(result, markers, "Baseline and current", "Port level (× incident step)",
-            string.Create(CultureInfo.InvariantCulture,
-                $"Difference (current − baseline); noise band ±{result.NoiseBand:0.0000}; verdict: {(result.Pass ? "pass" : "fail")}"),
+        bool pair = result.ReferenceKind == ReferenceKind.Pair;
+        var (traces, difference) = Panels(result, markers, pair ? "Reference pair and suspect pair" : "Baseline and current", "Port level (× incident step)",
+            pair
+                ? string.Create(CultureInfo.InvariantCulture,
+                    $"Difference (suspect − reference pair{(result.Spread?.LengthFitted == true ? ", length-aligned" : "")}); band ±{result.NoiseBand:0.0000}; verdict: {(result.Pass ? "pass" : "fail")}")
+                : string.Create(CultureInfo.InvariantCulture,
+                    $"Difference (current − baseline); noise band ±{result.NoiseBand:0.0000}; verdict: {(result.Pass ? "pass" : "fail")}"),
             shadeBlindZone: true);
         return new Figure
         {
-            Title = string.IsNullOrWhiteSpace(title) ? "Repair check" : title,
+            Title = string.IsNullOrWhiteSpace(title) ? (pair ? "Pair check" : "Repair check") : title,
             Panels = [traces, difference],
             Unit = unit,
             VelocityFactor = result.Settings.VelocityFactor,
@@ -43,8 +47,8 @@ public static class CompareFigures
             YLabel = overlayYLabel,
             Series =
             [
-                new FigureSeries(d, result.Baseline.SamplesVolts.ToArray(), "baseline", SeriesStyle.Secondary),
-                new FigureSeries(d, result.Current.SamplesVolts.ToArray(), "current", SeriesStyle.Primary),
+                new FigureSeries(d, result.Baseline.SamplesVolts.ToArray(), result.ReferenceKind == ReferenceKind.Pair ? "reference pair" : "baseline", SeriesStyle.Secondary),
+                new FigureSeries(d, result.Current.SamplesVolts.ToArray(), result.ReferenceKind == ReferenceKind.Pair ? "suspect" : "current", SeriesStyle.Primary),
             ],
             Markers = markers,
             ShadedRegion = shadeBlindZone ? (0, result.BlindZoneMeters) : null,

@@ -62,4 +62,17 @@ public sealed record CompareResult
 
     /// <summary>One-line warnings for the user.</summary>
     public required IReadOnlyList<string> Warnings { get; init; }
+
+    /// <summary>What the reference trace was (<see cref="Baseline"/> holds it either way).</summary>
+    public ReferenceKind ReferenceKind { get; init; } = ReferenceKind.Baseline;
+
+    /// <summary>Length stretch and impedance offset of the current run against the reference (none fitted or estimated
+    /// for a baseline with the default tolerances). When a stretch was fitted, <see cref="Current"/>,
+    /// <see cref="CurrentLocate"/> and <see cref="Difference"/> are on the reference's time axis.</summary>
+    public PairSpread? Spread { get; init; }
+
+    /// <summary>Where the current run first differs from the reference beyond the tolerances, m: the nearest failing
+    /// event change or unexplained difference region (its start, where the difference leaves the band); null when the
+    /// check passes on events and regions.</summary>
+    public double? FirstDifferenceMeters { get; init; }
 }

@@ -6,7 +6,7 @@ namespace CableFault.Comparison;
 /// Pairs the events of two traces of one run. Events keep their order along a cable, so the pairing is an
 /// order-preserving alignment (dynamic programming, as for the edit distance of two sequences): leaving an event
 /// unpaired costs 1, pairing two costs their distance apart over the window plus penalties for a different kind and
-/// a different reflection, and pairs further apart than the window are not allowed.
+/// a different reflection, and pairs further apart than the window (which may grow with distance) are not allowed.
 /// </summary>
 internal static class EventMatcher
 {
@@ -18,7 +18,7 @@ internal static class EventMatcher
 
     /// <summary>Pairs as (baseline index or −1, current index or −1), in order along the run.</summary>
     internal static IReadOnlyList<(int Baseline, int Current)> Match(IReadOnlyList<LocatedEvent> baseline,
-        IReadOnlyList<LocatedEvent> current, double windowMeters)
+        IReadOnlyList<LocatedEvent> current, Func<double, double> windowMetersAt)
     {
         int n = baseline.Count, m = current.Count;
         var cost = new double[n + 1, m + 1];
@@ -30,7 +30,7 @@ internal static class EventMatcher
             {
                 double best = cost[i - 1, j] + UnpairedCost; byte how = 1;
                 if (cost[i, j - 1] + UnpairedCost < best) { best = cost[i, j - 1] + UnpairedCost; how = 2; }
-                double pair = PairCost(baseline[i - 1], current[j - 1], windowMeters);
+                double pair = PairCost(baseline[i - 1], current[j - 1], windowMetersAt(baseline[i - 1].DistanceMeters));
                 if (cost[i - 1, j - 1] + pair < best) { best = cost[i - 1, j - 1] + pair; how = 3; }
                 cost[i, j] = best; step[i, j] = how;
             }

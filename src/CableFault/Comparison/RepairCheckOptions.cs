@@ -40,8 +40,16 @@ public sealed record RepairCheckOptions
     /// <summary>Cable types to resolve designations against.</summary>
     public CableLibrary Library { get; init; } = CableLibrary.BuiltIn;
 
-    /// <summary>Tolerances for the verdict.</summary>
-    public CompareTolerances Tolerances { get; init; } = new();
+    /// <summary>What the reference trace is: an earlier capture of the same run (default) or a healthy pair of the
+    /// same cable. Sets the default tolerances and the wording of the verdict.</summary>
+    public ReferenceKind ReferenceKind { get; init; } = ReferenceKind.Baseline;
+
+    /// <summary>Tolerances for the verdict, or null for the defaults of <see cref="ReferenceKind"/>
+    /// (<see cref="CompareTolerances.For"/>).</summary>
+    public CompareTolerances? Tolerances { get; init; }
+
+    /// <summary>The tolerances the check uses: <see cref="Tolerances"/> when given, else the defaults of the kind.</summary>
+    public CompareTolerances EffectiveTolerances => Tolerances ?? CompareTolerances.For(ReferenceKind);
 
     /// <summary>Band-limit the sharper trace with a Gaussian so both have the slower rise time.</summary>
     public bool MatchRise { get; init; }
@@ -55,7 +63,7 @@ public sealed record RepairCheckOptions
     /// <summary>Every problem with the options, each naming the option; empty when valid.</summary>
     public IReadOnlyList<string> Problems()
     {
-        var problems = new List<string>(Tolerances.Problems());
+        var problems = new List<string>(EffectiveTolerances.Problems());
         if (VelocityFactor is double vf && !(vf > 0 && vf <= 1)) problems.Add($"--vf {vf} must be in (0, 1], e.g. 0.66");
         if (ImpedanceOhms is double z && (!(z > 0) || !double.IsFinite(z))) problems.Add($"--z0 {z} must be a positive number of ohms, e.g. 50");
         if (!(NoiseBandSigmas > 0) || !double.IsFinite(NoiseBandSigmas)) problems.Add($"noise band {NoiseBandSigmas} σ must be positive");

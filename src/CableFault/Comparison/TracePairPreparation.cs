@@ -63,7 +63,7 @@ internal static class TracePairPreparation
 
         var tb = new Trace(start, dt, b, baseline.Metadata);
         var tc = new Trace(start, dt, c, current.Metadata);
-        return new PreparedPair(tb, tc, nb, nc, rb, rc, matched, warnings);
+        return new PreparedPair(tb, tc, nb, nc, rb, rc, matched, warnings, cb.IncidentAmplitudeVolts, cc.IncidentAmplitudeVolts);
     }
 
     private static Trace Normalise(Trace aligned, double amplitudeVolts) =>
