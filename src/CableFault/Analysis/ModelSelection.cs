@@ -62,6 +62,8 @@ internal static class ModelSelection
     /// <param name="PeakSignatureVolts">Largest |model with − model without| over the window, V (signed).</param>
     internal sealed record Evidence(double DeltaBic, double PeakSignatureVolts);
 
+    /// <summary>Diagnosis hook: when set, every trial hypothesis and its criterion is written to it (the accuracy
+    /// benchmark's <c>--only</c> sets it with CF_TRACE=1). Null in normal use.</summary>
     internal static Action<string>? DebugTrace;
 
     internal static Result Select(RunModel initial, FitData data, double effectiveRiseSeconds, CancellationToken cancellation = default)

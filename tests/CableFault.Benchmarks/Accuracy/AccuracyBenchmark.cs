@@ -11,7 +11,8 @@
 //   --locate-timeout S   cancel one Locate after S seconds (default 20) and count the run as failed (all its events
 //                missed): a few many-event runs take minutes and would blow the time budget
 //   --threads T  cases run side by side (default 2)
-//   --only I,J   run only the cases with these indices and print each one's truth, result and fit (for diagnosis)
+//   --only I,J   run only the cases with these indices and print each one's truth, result and fit (for diagnosis;
+//                with the environment variable CF_TRACE=1 also every hypothesis the model selection tried)
 //
 // Prints a summary table to stdout: distance errors of matched events (median and 95th percentile, % of distance and
 // units of u = v·t_rise/2), kind accuracy, missed and false events, the same for the naive method and the ratio, the
