@@ -47,12 +47,18 @@ internal sealed class FitData
 
     internal double TimeAt(int index) => StartTimeSeconds + index * IntervalSeconds;
 
+    /// <summary>10–90 % rise of the model as these data see it, s: the instrument's Gaussian edge and the low-pass add in
+    /// quadrature, σ² = σ_rise² + σ_filter².</summary>
+    internal double EffectiveRiseSeconds(double riseSeconds) =>
+        Math.Sqrt(Math.Pow(riseSeconds * SigmaPerRise, 2) + FilterSigmaSeconds * FilterSigmaSeconds) / SigmaPerRise;
+
     /// <summary>
     /// Cuts the window [startSeconds, endSeconds] from an aligned trace; when it spans more than
-    /// <see cref="MaximumRiseTimesPerWindow"/> rise times, smooths with a Gaussian so that the effective rise is
-    /// span/<see cref="MaximumRiseTimesPerWindow"/> and keeps every k-th sample (about two per effective σ).
+    /// <paramref name="maximumRiseTimesPerWindow"/> rise times, smooths with a Gaussian so that the effective rise is
+    /// span/that number and keeps every k-th sample (about two per effective σ).
     /// </summary>
-    internal static FitData Prepare(Trace aligned, double startSeconds, double endSeconds, double riseSeconds, double noiseRmsVolts)
+    internal static FitData Prepare(Trace aligned, double startSeconds, double endSeconds, double riseSeconds, double noiseRmsVolts,
+        double maximumRiseTimesPerWindow = MaximumRiseTimesPerWindow)
     {
         double dt = aligned.SampleIntervalSeconds;
         int first = Math.Max(0, (int)Math.Ceiling((startSeconds - aligned.StartTimeSeconds) / dt));
@@ -60,7 +66,7 @@ internal sealed class FitData
         if (last - first < 8) throw new ArgumentException("The fit window holds fewer than 8 samples.");
         double span = (last - first) * dt;
         double sigmaRise = riseSeconds * SigmaPerRise;
-        double sigmaEffective = Math.Max(sigmaRise, span / MaximumRiseTimesPerWindow * SigmaPerRise);
+        double sigmaEffective = Math.Max(sigmaRise, span / maximumRiseTimesPerWindow * SigmaPerRise);
         double sigmaFilter = sigmaEffective > sigmaRise * 1.0001 ? Math.Sqrt(sigmaEffective * sigmaEffective - sigmaRise * sigmaRise) : 0;
         int stride = sigmaFilter > 0 ? Math.Max(1, (int)Math.Floor(0.5 * sigmaEffective / dt)) : 1;
         var samples = aligned.SamplesVolts;

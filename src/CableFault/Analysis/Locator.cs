@@ -99,14 +99,24 @@ public static class Locator
         // levels that tell a shunt resistor from an impedance drop and a termination from a change of line.
         double end = lastTime + Math.Max(WindowTailRiseTimes * rise + 5 * tailTau, lastTime - firstTime + 8 * rise);
         var data = FitData.Prepare(aligned, -WindowLeadRiseTimes * rise, end, rise, characteristics.NoiseRmsVolts);
-        double sigmaEffective = Math.Sqrt(Math.Pow(rise / 2.5631031310892007, 2) + data.FilterSigmaSeconds * data.FilterSigmaSeconds);
-        double riseEffective = sigmaEffective * 2.5631031310892007;
-        if (data.FilterSigmaSeconds > 0)
-            warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"long record: the model was fitted with an effective rise of {riseEffective * 1e9:0.###} ns, so events closer than about {v * riseEffective / 2:0.###} m may show as one."));
+        double riseEffective = data.EffectiveRiseSeconds(rise);
         options.Progress?.Report(0.4);
 
         var selection = ModelSelection.Select(initial, data, riseEffective, options.CancellationToken);
+        if (data.FilterSigmaSeconds > 0)
+        {
+            // The selection ran on strongly smoothed data: look again, far less smoothed (see ResolutionRefinement).
+            var fine = FitData.Prepare(aligned, -WindowLeadRiseTimes * rise, end, rise, characteristics.NoiseRmsVolts,
+                ResolutionRefinement.MaximumRiseTimesPerWindow);
+            double riseFine = fine.EffectiveRiseSeconds(rise);
+            options.Progress?.Report(0.8);
+            selection = ResolutionRefinement.Refine(selection, fine, riseFine, riseEffective, options.CancellationToken);
+            data = fine;
+            riseEffective = riseFine;
+        }
+        if (data.FilterSigmaSeconds > 0)
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"long record: the model was fitted with an effective rise of {riseEffective * 1e9:0.###} ns, so events closer than about {v * riseEffective / 2:0.###} m may show as one."));
         var fit = selection.Fit;
         var model = fit.Model;
         var covariance = ModelFitter.Covariance(fit, selection.VarianceVolts2, data.IndependentFraction);

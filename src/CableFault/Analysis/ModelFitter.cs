@@ -20,6 +20,9 @@ internal static class ModelFitter
     /// <summary>Default iteration limit; warm starts converge in a handful.</summary>
     internal const int DefaultMaximumIterations = 40;
 
+    /// <summary>Fresh starts with a finite-difference Jacobian after LM stalled on a secant one.</summary>
+    private const int MaximumSecantRestarts = 2;
+
     /// <summary>Fits all parameters, or those marked free in <paramref name="free"/>.</summary>
     internal static ModelFit Fit(RunModel initial, FitData data, double sampleVarianceVolts2, bool[]? free = null,
         int maximumIterations = DefaultMaximumIterations, CancellationToken cancellation = default)
@@ -31,11 +34,11 @@ internal static class ModelFitter
         var x = Vector<double>.Build.Dense(y.Count, i => i);
         double weight = 1 / Math.Max(sampleVarianceVolts2, 1e-300);
 
-        // Jacobian in the dimensionless parameters u (forward differences, columns in parallel).
+        // Jacobian in the dimensionless parameters u: forward differences (columns in parallel) at the start and every
+        // few steps, Broyden's rank-one secant update in between (see SecantJacobian).
         double[]? cachedU = null, cachedF = null;
-        double[]? cachedJU = null;
         double referenceAmplitude = initial.Context.ReferenceAmplitudeVolts;
-        double[][]? cachedJ = null;
+        var secant = new SecantJacobian(p, free);
         double[] Model(double[] u)
         {
             cancellation.ThrowIfCancellationRequested();
@@ -45,24 +48,14 @@ internal static class ModelFitter
             cachedF = f;
             return f;
         }
-        double[][] JacobianU(double[] u)
+        double[][] ExactJacobianU(double[] u)
         {
-            if (cachedJU is not null && u.AsSpan().SequenceEqual(cachedJU)) return cachedJ!;
             double[] f0 = Model(u);
             var columns = new double[p][];
             Parallel.For(0, p, new ParallelOptions { CancellationToken = cancellation }, j =>
             {
                 var col = new double[f0.Length];
-                if (free[j] && j == AmplitudeIndex && u[AmplitudeIndex] != 0)
-                {
-                    // The samples are linear in the amplitude and the level offset: exact columns, no evaluation.
-                    double offset = u[OffsetIndex] * referenceAmplitude;
-                    for (int i = 0; i < col.Length; i++) col[i] = (f0[i] - offset) / u[AmplitudeIndex];
-                }
-                else if (free[j] && j == OffsetIndex)
-                {
-                    Array.Fill(col, referenceAmplitude);
-                }
+                if (free[j] && IsExactColumn(j, u)) FillExactColumn(j, u, f0, referenceAmplitude, col);
                 else if (free[j])
                 {
                     var shifted = (double[])u.Clone();
@@ -72,9 +65,25 @@ internal static class ModelFitter
                 }
                 columns[j] = col;
             });
-            cachedJU = u;
-            cachedJ = columns;
             return columns;
+        }
+        double[][] JacobianU(double[] u)
+        {
+            if (secant.IsAt(u)) return secant.Columns!;
+            double[] f0 = Model(u);
+            if (secant.CanUpdate)
+            {
+                var exact = new double[p][];
+                for (int j = 0; j < p; j++)
+                {
+                    if (!free[j] || !IsExactColumn(j, u)) continue;
+                    exact[j] = new double[f0.Length];
+                    FillExactColumn(j, u, f0, referenceAmplitude, exact[j]);
+                }
+                secant.Update(u, f0, exact);
+            }
+            else secant.Reset(u, f0, ExactJacobianU(u));
+            return secant.Columns!;
         }
 
         // LM runs on scaled offsets q_j = (u_j − u₀_j)·s_j with s_j = ‖∂f/∂u_j‖/σ at the start, so that every diagonal
@@ -110,22 +119,56 @@ internal static class ModelFitter
         var minimizer = new LevenbergMarquardtMinimizer(initialMu: 1e-3, gradientTolerance: 1e-3, stepTolerance: 1e-15,
             functionTolerance: 0, maximumIterations: maximumIterations);
         NonlinearMinimizationResult? result = null;
-        try
+        var isFixed = free.Select(f => !f).ToList();
+        var start = Vector<double>.Build.Dense(p);
+        int iterations = 0;
+        for (int restart = 0; restart <= MaximumSecantRestarts; restart++)
         {
-            result = minimizer.FindMinimum(objective, Vector<double>.Build.Dense(p), isFixed: free.Select(f => !f).ToList());
-        }
-        catch (MaximumIterationsException)
-        {
+            try
+            {
+                minimizer.MaximumIterations = Math.Max(1, maximumIterations - iterations);
+                result = minimizer.FindMinimum(objective, start, isFixed: isFixed);
+                iterations += Math.Max(0, result.Iterations);
+            }
+            catch (MaximumIterationsException)
+            {
+                result = null;
+                iterations = maximumIterations;
+            }
+            // A stop decided on a secant Jacobian may be its error, not the minimum: LM then cannot find a descent step
+            // and shrinks it to nothing. Go on from there with a fresh finite-difference Jacobian; a real minimum then
+            // stops at once on the gradient test.
+            if (result is null || !secant.IsUpdated || iterations >= maximumIterations
+                || result.ReasonForExit is not (ExitCondition.RelativePoints or ExitCondition.LackOfProgress)) break;
+            start = result.MinimizingPoint;
+            secant.ForceExact();
         }
         var uBest = result is null ? u0 : ToU(result.MinimizingPoint);
         var model = initial.FromVector(uBest);
         var fitted = Model(uBest);
         double rss = 0;
         for (int i = 0; i < fitted.Length; i++) rss += (data.Samples[i] - fitted[i]) * (data.Samples[i] - fitted[i]);
-        var jacobian = new Lazy<Matrix<double>>(() => Matrix<double>.Build.DenseOfColumnArrays(JacobianU(uBest)));
+        // The covariance needs the true derivatives: a secant Jacobian is only good enough to steer LM.
+        var jacobian = new Lazy<Matrix<double>>(() => Matrix<double>.Build.DenseOfColumnArrays(
+            secant.IsAt(uBest) && !secant.IsUpdated ? secant.Columns! : ExactJacobianU(uBest)));
         bool converged = result is not null && result.ReasonForExit is ExitCondition.Converged or ExitCondition.RelativeGradient
             or ExitCondition.AbsoluteGradient or ExitCondition.RelativePoints or ExitCondition.LackOfProgress;
-        return new ModelFit(model, fitted, rss, Math.Max(0, result?.Iterations ?? maximumIterations), converged, jacobian, (bool[])free.Clone());
+        return new ModelFit(model, fitted, rss, result is null ? maximumIterations : iterations, converged, jacobian, (bool[])free.Clone());
+    }
+
+    /// <summary>The amplitude and level-offset columns are exact and cost no model run: the samples are linear in them.</summary>
+    private static bool IsExactColumn(int j, double[] u) => (j == AmplitudeIndex && u[AmplitudeIndex] != 0) || j == OffsetIndex;
+
+    /// <summary>∂f/∂u_A = (f − offset)/u_A and ∂f/∂u_offset = A_ref (f is linear in both).</summary>
+    private static void FillExactColumn(int j, double[] u, double[] f0, double referenceAmplitude, double[] col)
+    {
+        if (j == OffsetIndex)
+        {
+            Array.Fill(col, referenceAmplitude);
+            return;
+        }
+        double offset = u[OffsetIndex] * referenceAmplitude;
+        for (int i = 0; i < col.Length; i++) col[i] = (f0[i] - offset) / u[AmplitudeIndex];
     }
 
     /// <summary>RSS of a model without fitting it.</summary>

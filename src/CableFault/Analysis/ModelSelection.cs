@@ -35,6 +35,10 @@ internal static class ModelSelection
     /// detection can rest on (common practice).</summary>
     internal const double MinimumSignatureSignalToNoise = 3;
 
+    /// <summary>Echoes of a tap's open branch end (after 1, 2, … branch round trips) whose fitted stand-ins the tap
+    /// hypothesis removes: each returns weaker by the junction's transmission, so by the fourth it is mostly lost.</summary>
+    private const int TapEchoesRemoved = 4;
+
     /// <summary>Most split rounds (each may split one event).</summary>
     private const int MaximumSplitRounds = 4;
 
@@ -58,12 +62,15 @@ internal static class ModelSelection
     /// <param name="PeakSignatureVolts">Largest |model with − model without| over the window, V (signed).</param>
     internal sealed record Evidence(double DeltaBic, double PeakSignatureVolts);
 
+    /// <summary>Diagnosis hook: when set, every trial hypothesis and its criterion is written to it (the accuracy
+    /// benchmark's <c>--only</c> sets it with CF_TRACE=1). Null in normal use.</summary>
+    internal static Action<string>? DebugTrace;
+
     internal static Result Select(RunModel initial, FitData data, double effectiveRiseSeconds, CancellationToken cancellation = default)
     {
-        double variance = Math.Max(data.NoiseRmsVolts * data.NoiseRmsVolts,
-            Math.Pow(ModellingFloorRelative * initial.Context.ReferenceAmplitudeVolts, 2));
+        double variance = SampleVariance(data, initial);
         double nu = data.IndependentFraction;
-        double logN = Math.Log(Math.Max(2, nu * data.Samples.Length));
+        double logN = LogSampleCount(data);
         double Bic(ModelFit f) => nu * f.ResidualSumOfSquares / variance + f.Model.ParameterCount * logN;
         int trials = 0;
         string Key(RunModel m) => string.Join(",", m.Events.Select(e => $"{e.Element}@{Math.Round(e.RoundTripSeconds / effectiveRiseSeconds)}"));
@@ -80,7 +87,7 @@ internal static class ModelSelection
             // The same kinds at the same places (to within an effective rise) are one hypothesis: fitting it twice from
             // nearby starts gains nothing.
             string key = Key(candidate);
-            if (!tried.Add(key)) return false;
+            if (!tried.Add(key)) { DebugTrace?.Invoke($"skip (tried) {key}"); return false; }
             trials++;
             var free = new bool[candidate.ParameterCount];
             for (int g = 0; g < RunModel.GlobalParameterCount; g++) free[g] = true;
@@ -101,6 +108,7 @@ internal static class ModelSelection
                 bic = Bic(fit);
             }
             bool accept = simpler ? bic < bestBic + EvidenceMargin : bic < bestBic - EvidenceMargin;
+            DebugTrace?.Invoke($"trial {key}: bic {bic:0.0} vs best {bestBic:0.0} conv {fit.Converged} it {fit.Iterations} -> {accept}");
             if (accept) { best = fit; bestBic = bic; }
             return accept;
         }
@@ -139,43 +147,7 @@ internal static class ModelSelection
             return winner is not null;
         }
 
-        // Alternative kinds, where what follows can tell them apart.
-        for (int i = 0; i < best.Model.Events.Count; i++)
-        {
-            var m = best.Model;
-            var e = m.Events[i];
-            if (e.Element != RunModelElement.Boundary || i == m.Events.Count - 1) continue;
-            double zPrev = RunModelBuilder.ImpedanceBefore(m, i);
-            double rho = LocalReflection(m, i);
-            if (rho < 0)
-            {
-                var list = m.Events.ToList();
-                list[i] = Resistive(m, i);
-                var variants = new List<RunModel> { m.WithEvents(list) };
-                if (rho > -0.6 && rho < -0.1)
-                {
-                    // A tap: the drop and a later rise or open (the branch end's echo) become one junction with an open
-                    // branch. A shunt resistor of Z followed by an open reflects exactly like a tap whose other branch is
-                    // matched, with one parameter fewer: the criterion prefers the tap, the usual way such a trace arises.
-                    foreach (int j in Enumerable.Range(i + 1, m.Events.Count - i - 1)
-                                 .Where(j => m.Events[j].Element == RunModelElement.Open
-                                             || (m.Events[j].Element == RunModelElement.Boundary && LocalReflection(m, j) > 0)).Take(3))
-                    {
-                        var tapList = m.Events.ToList();
-                        tapList[i] = e with { Element = RunModelElement.Tap, Value = m.Events[j].RoundTripSeconds - e.RoundTripSeconds };
-                        tapList.RemoveAt(j);
-                        variants.Add(m.WithEvents(tapList));
-                    }
-                }
-                if (TryBest(variants, simpler: true, i)) continue;
-            }
-            else
-            {
-                var list = m.Events.ToList();
-                list[i] = Resistive(m, i);
-                TryAccept(m.WithEvents(list), simpler: true, i);
-            }
-        }
+        Alternatives();
 
         TryEnds();
 
@@ -195,6 +167,7 @@ internal static class ModelSelection
         }
 
         // Split where the residual around an event is larger than the noise allows.
+        int splits = 0;
         for (int round = 0; round < MaximumSplitRounds; round++)
         {
             var m = best.Model;
@@ -211,10 +184,21 @@ internal static class ModelSelection
             }
             if (worst < 0 || worstExcess < 2 * logN + EvidenceMargin) break;
             if (!TryAccept(m.WithEvents(Split(m, worst, effectiveRiseSeconds / 4)), simpler: false, worst, worst + 1)) break;
+            splits++;
+        }
+        if (splits > 0)
+        {
+            // A split can make the earlier part of the run right for the first time; what follows is then worth reading
+            // again (a short behind a leak looks like a step until the leak is modelled as one).
+            Prune();
+            Alternatives();
+            TryEnds();
         }
 
         Prune();
         TruncateAtTotalReflection();
+        var resolved = CoincidentEvents.Resolve(best, data, variance, effectiveRiseSeconds, ref trials, cancellation);
+        if (!ReferenceEquals(resolved, best)) (best, bestBic) = (resolved, Bic(resolved));
         if (trials > 0)
         {
             // Polish: every parameter free, warm started from the selected model.
@@ -233,7 +217,8 @@ internal static class ModelSelection
             for (int i = 0; i < best.Model.Events.Count; i++)
             {
                 var m = best.Model;
-                if (m.Events[i].Element != RunModelElement.Boundary) continue;
+                // A resistor can stand in for an end too: a short behind a lossy stretch fits first as a small shunt R.
+                if (m.Events[i].Element is not (RunModelElement.Boundary or RunModelElement.ShuntResistor or RunModelElement.SeriesResistor)) continue;
                 double rho = LocalReflection(m, i);
                 if (Math.Abs(rho) < EndTrialReflection) continue;
                 var end = m.Events[i] with { Element = rho > 0 ? RunModelElement.Open : RunModelElement.Short, Value = double.NaN };
@@ -248,6 +233,56 @@ internal static class ModelSelection
                     variants.Add(list);
                 }
                 if (TryBest(variants.Select(v => m.WithEvents(v)).ToList(), simpler: true, 0)) return;
+            }
+        }
+
+        // Alternative kinds, where what follows can tell them apart.
+        void Alternatives()
+        {
+            for (int i = 0; i < best.Model.Events.Count; i++)
+            {
+                var m = best.Model;
+                var e = m.Events[i];
+                if (e.Element is not (RunModelElement.Boundary or RunModelElement.ShuntResistor) || i == m.Events.Count - 1) continue;
+                double rho = LocalReflection(m, i);
+                if (rho < 0)
+                {
+                    var variants = new List<RunModel>();
+                    if (e.Element == RunModelElement.Boundary)
+                    {
+                        var list = m.Events.ToList();
+                        list[i] = Resistive(m, i);
+                        variants.Add(m.WithEvents(list));
+                    }
+                    if (rho > -0.6 && rho < -0.1)
+                    {
+                        // A tap: the drop and a later upward echo (the open branch end seen through the junction, which the
+                        // first fit may have read as a rise, an open, a series L or a series R) become one junction with an
+                        // open branch. A shunt resistor of Z followed by an open reflects exactly like a tap whose other
+                        // branch is matched, with one parameter fewer: the criterion prefers the tap, the usual way such a
+                        // trace arises. The branch end also rings (its echo returns after each further branch round trip)
+                        // and the first fit will have put events there: they go with the hypothesis, and in a second
+                        // variant so does whatever lies between the junction and the branch end's first echo.
+                        foreach (int j in Enumerable.Range(i + 1, m.Events.Count - i - 1).Where(j => IsUpward(m, j)).Take(3))
+                        {
+                            double branch = m.Events[j].RoundTripSeconds - e.RoundTripSeconds;
+                            bool IsRinging(RunModelEvent x) => Enumerable.Range(1, TapEchoesRemoved)
+                                .Any(k => Math.Abs(x.RoundTripSeconds - e.RoundTripSeconds - k * branch) < 0.75 * effectiveRiseSeconds);
+                            var tap = e with { Element = RunModelElement.Tap, Value = branch };
+                            var tapList = m.Events.Select((x, k) => k == i ? tap : x).Where((x, k) => k <= i || !IsRinging(x)).ToList();
+                            variants.Add(m.WithEvents(tapList));
+                            var cleared = tapList.Where(x => x.RoundTripSeconds <= e.RoundTripSeconds || x.RoundTripSeconds > m.Events[j].RoundTripSeconds).ToList();
+                            if (cleared.Count < tapList.Count) variants.Add(m.WithEvents(cleared));
+                        }
+                    }
+                    if (variants.Count > 0 && TryBest(variants, simpler: true, i)) continue;
+                }
+                else if (e.Element == RunModelElement.Boundary)
+                {
+                    var list = m.Events.ToList();
+                    list[i] = Resistive(m, i);
+                    TryAccept(m.WithEvents(list), simpler: true, i);
+                }
             }
         }
 
@@ -303,13 +338,29 @@ internal static class ModelSelection
         }
     }
 
-    /// <summary>Index of the first end or boundary to |ρ| ≥ the classifier's end threshold, −1 when there is none.</summary>
+    /// <summary>True when event <paramref name="j"/> reflects upwards (an open, a rise, a series L or R).</summary>
+    private static bool IsUpward(RunModel m, int j) => m.Events[j].Element switch
+    {
+        RunModelElement.Open or RunModelElement.SeriesInductor or RunModelElement.SeriesResistor => true,
+        RunModelElement.Boundary => LocalReflection(m, j) > 0,
+        _ => false,
+    };
+
+    /// <summary>σ² of one analysed sample for the criterion: the noise, floored at the modelling accuracy (see remarks).</summary>
+    internal static double SampleVariance(FitData data, RunModel model) => Math.Max(data.NoiseRmsVolts * data.NoiseRmsVolts,
+        Math.Pow(ModellingFloorRelative * model.Context.ReferenceAmplitudeVolts, 2));
+
+    /// <summary>ln n of the criterion's penalty, n = ν·N independent samples.</summary>
+    internal static double LogSampleCount(FitData data) => Math.Log(Math.Max(2, data.IndependentFraction * data.Samples.Length));
+
+    /// <summary>Index of the first end, or boundary or resistor to |ρ| ≥ the classifier's end threshold, −1 when there is none.</summary>
     private static int TotalReflectionIndex(RunModel m)
     {
         for (int i = 0; i < m.Events.Count; i++)
         {
             var e = m.Events[i];
-            if (e.EndsRun || (e.Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, i)) >= EventClassifier.EndReflection))
+            if (e.EndsRun || (e.Element is RunModelElement.Boundary or RunModelElement.ShuntResistor or RunModelElement.SeriesResistor
+                              && Math.Abs(LocalReflection(m, i)) >= EventClassifier.EndReflection))
                 return i;
         }
         return -1;

@@ -86,7 +86,8 @@ public static class RepairCheck
             kind == ReferenceKind.Pair ? Math.Max(2 * slack, tol.DistanceAt(meters)) : 2 * slack);
 
         // A stretch cuts the reference's record where the current one ends: events past the cut have no partner.
-        var eventsB = OnTheRun(locB, blind, out double endB).Where(e => e.DistanceMeters <= distances[^1] - slack).ToList();
+        var eventsB = OnTheRun(locB, blind, out double endB);
+        if (spread.LengthFitted) eventsB = eventsB.Where(e => e.DistanceMeters <= distances[^1] - slack).ToList();
         var eventsC = OnTheRun(locC, blind, out double endC);
         int beyond = locB.Events.Count + locC.Events.Count - eventsB.Count - eventsC.Count;
         if (beyond > 0)

@@ -11,6 +11,8 @@
 //   --locate-timeout S   cancel one Locate after S seconds (default 20) and count the run as failed (all its events
 //                missed): a few many-event runs take minutes and would blow the time budget
 //   --threads T  cases run side by side (default 2)
+//   --only I,J   run only the cases with these indices and print each one's truth, result and fit (for diagnosis;
+//                with the environment variable CF_TRACE=1 also every hypothesis the model selection tried)
 //
 // Prints a summary table to stdout: distance errors of matched events (median and 95th percentile, % of distance and
 // units of u = v·t_rise/2), kind accuracy, missed and false events, the same for the naive method and the ratio, the
@@ -40,6 +42,7 @@ public static class AccuracyBenchmark
         double timeoutSeconds = 20;
         string output = "accuracy-results.csv";
         bool speed = true;
+        HashSet<int>? only = null;
         for (int i = 0; i < args.Length; i++)
         {
             switch (args[i])
@@ -49,6 +52,7 @@ public static class AccuracyBenchmark
                 case "--seed": seed = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 case "--threads": threads = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 case "--no-speed": speed = false; break;
+                case "--only": only = args[++i].Split(',').Select(x => int.Parse(x, CultureInfo.InvariantCulture)).ToHashSet(); speed = false; break;
                 case "--locate-timeout": timeoutSeconds = double.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 default:
                     Console.Error.WriteLine($"accuracy: unknown argument '{args[i]}'; use [--cases N] [--out FILE] [--seed S] [--threads T] [--no-speed] [--locate-timeout S]");
@@ -62,10 +66,12 @@ public static class AccuracyBenchmark
         for (int i = 0; i < closePairs; i++) all.Add(RunGenerator.ClosePair(10_000 + i, seed + 10_000 + i));
         for (int i = 0; i < nothing; i++) all.Add(RunGenerator.NothingThere(20_000 + i, seed + 20_000 + i, noiseOnly: false));
         for (int i = 0; i < nothing; i++) all.Add(RunGenerator.NothingThere(30_000 + i, seed + 30_000 + i, noiseOnly: true));
+        if (only is not null) return CaseDiagnosis.Run(all.Where(c => only.Contains(c.Index)).ToList(), timeoutSeconds);
 
         Console.WriteLine($"accuracy benchmark: {cases} random runs ({all.Count(c => c.Source == TraceSource.Ngspice)} by ngspice), " +
             $"{closePairs} close-pair, {nothing} matched-line and {nothing} noise-only traces; seed {seed}; {threads} thread(s)");
         var watch = Stopwatch.StartNew();
+        long runsBefore = Interlocked.Read(ref RunModel.SimulationCount);
         var results = new ConcurrentBag<CaseResult>();
         int done = 0;
         // ngspice cases first: they are the slowest and run as separate processes.
@@ -77,7 +83,9 @@ public static class AccuracyBenchmark
                 if (k % 50 == 0) Console.Error.WriteLine($"  {k}/{all.Count} cases, {watch.Elapsed.TotalSeconds:0} s");
             });
         var ordered = results.OrderBy(r => r.Case.Index).ToList();
-        Console.WriteLine($"cases run in {watch.Elapsed.TotalSeconds:0.#} s");
+        long forwardRuns = Interlocked.Read(ref RunModel.SimulationCount) - runsBefore;
+        // The model runs are the cost of locate that does not depend on how busy the machine is.
+        Console.WriteLine($"cases run in {watch.Elapsed.TotalSeconds:0.#} s; {forwardRuns} forward-model runs inside locate ({forwardRuns / (double)all.Count:0} per trace)");
 
         (double, double, int)? speedResult = null;
         if (speed)

@@ -20,10 +20,12 @@ namespace CableFault.Benchmarks.Accuracy;
 /// <param name="EchoDistancesMeters">Apparent distances of physical echoes (re-reflections between events, a tap's
 /// branch end); a located event there is still counted false, but reported as "echo".</param>
 /// <param name="Description">The run in words.</param>
+/// <param name="BranchEndDistancesMeters">Apparent distances of the open ends of tap branches (tap distance + branch
+/// length): real ends, off the main line. An open reported there is neither a main-line event nor false.</param>
 public sealed record AccuracyCase(int Index, string Family, TraceSource Source, CableNetwork Network, double ImpedanceOhms,
     double VelocityFactor, CableLossModel? Loss, double RiseSeconds, double SampleIntervalSeconds, int SampleCount,
     double NoiseRmsVolts, int NoiseSeed, IReadOnlyList<TruthEvent> Truth, IReadOnlyList<double> EchoDistancesMeters,
-    string Description)
+    string Description, IReadOnlyList<double>? BranchEndDistancesMeters = null)
 {
     /// <summary>Time before the incident edge's 50 % point in the record, s.</summary>
     public double PreTriggerSeconds => 5 * RiseSeconds + 2e-9;

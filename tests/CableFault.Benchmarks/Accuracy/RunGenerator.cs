@@ -139,14 +139,14 @@ public static class RunGenerator
 
         var built = Assemble(features, positions, end, endMeters, medium, z0, vf, loss, rise, u);
         if (built is null) return null;
-        var (network, truth, echoes, words) = built.Value;
+        var (network, truth, echoes, branchEnds, words) = built.Value;
         if (truth.Any(t => t.SeenSize < MinimumSeenSize || t.SeenSize < MinimumSeenOverNoise * noise)) return null;
         double spanNeeded = pre + 2 * 2 * network.LongestDelaySeconds() + 40 * rise;
         int count = (int)Math.Ceiling(spanNeeded / dt);
         if (count > MaximumSamples) return null;
         count = Math.Max(count, 2048);
         return new AccuracyCase(index, "random", source, network, z0, vf, loss, rise, dt, count, noise, rng.Next(),
-            truth, echoes, words);
+            truth, echoes, words, branchEnds);
     }
 
     private static Feature RandomFeature(EventKind kind, Random rng, double z0, double rise, double u) => kind switch
@@ -176,11 +176,12 @@ public static class RunGenerator
 
     /// <summary>Builds the network from the far end back (a tap's junction ends its branch) and walks it forward for
     /// the truth.</summary>
-    private static (CableNetwork, List<TruthEvent>, List<double>, string)? Assemble(List<Feature> features, double[] positions,
+    private static (CableNetwork, List<TruthEvent>, List<double>, List<double>, string)? Assemble(List<Feature> features, double[] positions,
         RunEnd end, double endMeters, CableMedium medium, double z0, double vf, CableLossModel? loss, double rise, double u)
     {
         var truth = new List<TruthEvent>();
         var echoes = new List<double>();
+        var branchEnds = new List<double>();
         var words = new List<string>();
         double transmission = 1;
         double alpha = Attenuation(loss, z0, 0.35 / rise);
@@ -226,6 +227,7 @@ public static class RunGenerator
                     truth.Add(new TruthEvent(p, EventKind.Tap, F($"tap, open branch {t.StubMeters:0.###} m"), Seen(1.0 / 3, p)));
                     transmission *= 4.0 / 9;
                     for (int k = 1; k <= 3; k++) echoes.Add(p + k * t.StubMeters);
+                    branchEnds.Add(p + t.StubMeters);
                     words.Add(F($"tap at {p:0.###} m (open branch {t.StubMeters:0.###} m)"));
                     stubs.Add(t.StubMeters);
                     levels.Add(new List<NetworkElement>());
@@ -243,6 +245,12 @@ public static class RunGenerator
                 truth.Add(new TruthEvent(endMeters, EventKind.Termination, F($"end in {end.ResistanceOhms:0.#} Ω"), Seen(rho, endMeters)));
                 break;
         }
+        // A shunt or series resistor, or a step to a new impedance, with nothing after it but a matched line is, seen from
+        // the port, the resistive load R‖Z, R + Z or Z at that point for every frequency: the same input impedance, so the
+        // same trace, as a resistor termination there. Either name is right (and is scored so).
+        if (end.Kind == EndKind.Matched && truth.Count > 0
+            && truth[^1].Kind is EventKind.PartialShort or EventKind.SeriesResistance or EventKind.ImpedanceRise or EventKind.ImpedanceDrop)
+            truth[^1] = truth[^1] with { EquivalentKind = EventKind.Termination };
         words.Add(end.Kind switch
         {
             EndKind.Resistor => F($"{endMeters:0.###} m to {end.ResistanceOhms:0.#} Ω"),
@@ -264,7 +272,7 @@ public static class RunGenerator
         var network = new CableNetwork(branch, "accuracy");
         if (network.Problems().Count > 0) return null;
         string cable = F($"Z0 {z0} Ω, VF {vf:0.###}, u = {u * 1000:0.#} mm{(loss is { IsLossless: false } ? F($", loss {loss.AttenuationDbPer100m(100e6):0.#} dB/100 m @100 MHz + {loss.DcResistanceOhmsPerMeter:0.###} Ω/m") : "")}");
-        return (network, truth, echoes, cable + ": " + string.Join("; ", words));
+        return (network, truth, echoes, branchEnds, cable + ": " + string.Join("; ", words));
 
         void AddLumped(EventKind kind, double size, double p)
         {
@@ -323,7 +331,8 @@ public static class RunGenerator
         var truth = new List<TruthEvent>
         {
             new(d1, kind, F($"step to {z1:0.#} Ω"), Math.Abs(rho)),
-            new(d2, kind, F($"step to {z2:0.#} Ω"), Math.Abs(rho) * (1 - rho * rho)),
+            // The second step runs into a matched line: a resistor termination of Z₂ there gives the same trace.
+            new(d2, kind, F($"step to {z2:0.#} Ω"), Math.Abs(rho) * (1 - rho * rho), EventKind.Termination),
         };
         double dt = rise / SamplesPerRise, pre = 5 * rise + 2e-9;
         int count = Math.Max(2048, (int)Math.Ceiling((pre + 4 * network.LongestDelaySeconds() + 40 * rise) / dt));

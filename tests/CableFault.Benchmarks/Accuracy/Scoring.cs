@@ -14,6 +14,9 @@ public enum Outcome
     Missed,
     /// <summary>A reported event matched to no true event.</summary>
     False,
+    /// <summary>A reported open at the end of a tap's branch: a real end, off the main line, so neither a main-line
+    /// match nor a false event.</summary>
+    BranchEnd,
 }
 
 /// <summary>One row of the score: a matched pair, a missed true event or a false report.</summary>
@@ -30,7 +33,7 @@ public sealed record ScoredEvent(Outcome Outcome, TruthEvent? Truth, FoundEvent?
     public double ErrorMeters => Outcome == Outcome.Matched ? Found!.DistanceMeters - Truth!.DistanceMeters : double.NaN;
 
     /// <summary>True when the kind is right (matched events of <c>locate</c> only).</summary>
-    public bool? KindCorrect => Outcome == Outcome.Matched && Found!.Kind is EventKind k ? k == Truth!.Kind : null;
+    public bool? KindCorrect => Outcome == Outcome.Matched && Found!.Kind is EventKind k ? Truth!.IsRightKind(k) : null;
 }
 
 /// <summary>Matches reported events to the truth one-to-one by distance, nearest pairs first, within a tolerance of
@@ -76,6 +79,11 @@ public static class Scoring
         {
             if (foundMatch[f] >= 0) continue;
             double d = found[f].DistanceMeters;
+            if (found[f].Kind == EventKind.Open && (c.BranchEndDistancesMeters ?? []).Any(b => Math.Abs(b - d) <= tolerance))
+            {
+                rows.Add(new ScoredEvent(Outcome.BranchEnd, null, found[f], "", false));
+                continue;
+            }
             string cls = c.Truth.Count == 0 ? "nothing-there"
                 : c.Truth.Any(e => Math.Abs(e.DistanceMeters - d) <= tolerance) ? "split"
                 : c.EchoDistancesMeters.Any(e => Math.Abs(e - d) <= tolerance) ? "echo"

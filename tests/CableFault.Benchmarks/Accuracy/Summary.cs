@@ -61,6 +61,7 @@ public static class Summary
         s.AppendLine("missed by kind: " + Join(missed.GroupBy(e => Name(e.Truth!.Kind)).OrderByDescending(g => g.Count()).Select(g => $"{g.Key} ×{g.Count()}")) +
             F($"; of them in a close pair: {missed.Count(e => e.InClosePair)}"));
         var falses = main.SelectMany(r => r.Locate).Where(e => e.Outcome == Outcome.False).ToList();
+        s.AppendLine(F($"tap branch ends reported as opens (real ends off the main line; neither matched nor false): {main.Sum(r => r.Locate.Count(e => e.Outcome == Outcome.BranchEnd))} of {main.Sum(r => r.Case.BranchEndDistancesMeters?.Count ?? 0)} branches"));
         s.AppendLine("false by class: " + Join(falses.GroupBy(e => e.FalseClass).OrderByDescending(g => g.Count()).Select(g => $"{g.Key} ×{g.Count()}")));
         s.AppendLine("false by reported kind: " + Join(falses.GroupBy(e => Name(e.Found!.Kind ?? EventKind.Unknown)).OrderByDescending(g => g.Count()).Select(g => $"{g.Key} ×{g.Count()}")));
         s.AppendLine(F($"false events' confidence: median {Percentile(falses.Select(e => e.Found!.Confidence), 0.5):0.00}, matched events' median {Percentile(main.SelectMany(r => r.Locate).Where(e => e.Outcome == Outcome.Matched).Select(e => e.Found!.Confidence), 0.5):0.00}"));
@@ -88,7 +89,8 @@ public static class Summary
         double kindAccuracy = matchedKinds.Count == 0 ? double.NaN : (double)matchedKinds.Count(e => e.KindCorrect == true) / matchedKinds.Count;
         s.AppendLine(Target(F($"median distance error ≤ max(0.1 % of d, 2 cm): median |error|/target = {medianVsTarget:0.###}"), medianVsTarget <= 1));
         s.AppendLine(Target(F($"95th percentile ≤ {TargetP95Percent} % of distance: {p95:0.###} %"), p95 <= TargetP95Percent));
-        s.AppendLine(Target(F($"kind accuracy ≥ {TargetKindAccuracy:P0}: {kindAccuracy:P1} of {matchedKinds.Count} matched events"), kindAccuracy >= TargetKindAccuracy));
+        int byEquivalence = matchedKinds.Count(e => e.KindCorrect == true && e.Found!.Kind != e.Truth!.Kind);
+        s.AppendLine(Target(F($"kind accuracy ≥ {TargetKindAccuracy:P0}: {kindAccuracy:P1} of {matchedKinds.Count} matched events ({byEquivalence} by an indistinguishable equivalent: a resistor or step before a matched end named as a termination; {(matchedKinds.Count == 0 ? double.NaN : (double)(matchedKinds.Count(e => e.KindCorrect == true) - byEquivalence) / matchedKinds.Count):P1} without them)"), kindAccuracy >= TargetKindAccuracy));
         foreach (var family in new[] { "noise-only", "matched-line" })
         {
             var set = results.Where(r => r.Case.Family == family).ToList();

@@ -8,4 +8,10 @@ namespace CableFault.Benchmarks.Accuracy;
 /// <param name="Element">What was put into the network, in words (e.g. "shunt R 120 Ω").</param>
 /// <param name="SeenSize">Estimated size of its signature at the port as a fraction of the incident step (see
 /// <see cref="RunGenerator"/> for the rule), dimensionless, &gt; 0.</param>
-public sealed record TruthEvent(double DistanceMeters, EventKind Kind, string Element, double SeenSize);
+/// <param name="EquivalentKind">A second kind that is just as right, because no trace taken at the port can tell the two
+/// apart (see <see cref="RunGenerator"/>: a resistor as the last thing before a matched end); null when there is none.</param>
+public sealed record TruthEvent(double DistanceMeters, EventKind Kind, string Element, double SeenSize, EventKind? EquivalentKind = null)
+{
+    /// <summary>True when <paramref name="reported"/> names this event rightly.</summary>
+    public bool IsRightKind(EventKind reported) => reported == Kind || reported == EquivalentKind;
+}

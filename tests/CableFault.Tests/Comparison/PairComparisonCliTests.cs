@@ -107,9 +107,13 @@ public class PairComparisonCliTests : IDisposable
     }
 
     [Fact]
-    public void UnknownReferenceKindIsUsageError()
+    public void UnknownReferenceKindAndOutOfRangeAllowancesAreUsageErrors()
     {
-        var result = CliRunner.Run("compare", "a.csv", "b.csv", "--reference-kind", "neighbour");
+        Assert.Equal(2, CliRunner.Run("compare", "a.csv", "b.csv", "--reference-kind", "neighbour").ExitCode);
+        string reference = Reference();
+        var result = CliRunner.Run("compare", reference, reference, "--reference-kind", "pair", "--tolerance-length-pct", "50");
         Assert.Equal(2, result.ExitCode);
+        Assert.Contains("--tolerance-length-pct", result.Error);
+        Assert.DoesNotContain("Exception", result.Error);
     }
 }

@@ -1,0 +1,129 @@
+namespace CableFault.Analysis;
+
+/// <summary>
+/// A second, sharper look at a long record. <see cref="ModelSelection"/> works on data smoothed to an effective rise of
+/// span/<see cref="FitData.MaximumRiseTimesPerWindow"/> so that its many trial fits stay cheap; at that resolution a short
+/// section of other cable (one to a few resolution units long) and a lumped capacitance or inductance look alike. This stage
+/// refits the chosen model on data smoothed far less (span/<see cref="MaximumRiseTimesPerWindow"/>) and, for each
+/// capacitive or inductive spot, tries the short low- or high-impedance section that smoothing would make look the same;
+/// the information criterion on the sharper data decides, as in the selection itself.
+/// </summary>
+internal static class ResolutionRefinement
+{
+    /// <summary>Most rise times the sharper window may span before it too is smoothed: five times the selection's
+    /// (each model run then costs about five times as much, and this stage makes few runs).</summary>
+    internal const double MaximumRiseTimesPerWindow = 1000;
+
+    /// <summary>Shortest section round trip, in effective rise times, accepted in place of a lumped spot: the separation
+    /// at which two equal edges are still resolved (half of v·t_r/2 one way).</summary>
+    internal const double MinimumSectionRiseTimes = 0.5;
+
+    /// <summary>Iteration limit of the refit and of each section trial (warm started from the selected model).</summary>
+    private const int Iterations = 20;
+
+    /// <summary>
+    /// Refits <paramref name="coarse"/> on <paramref name="fine"/> and replaces lumped C/L spots by sections where the
+    /// sharper data say so. <paramref name="fineRiseSeconds"/> and <paramref name="coarseRiseSeconds"/> are the effective
+    /// rise times of the two data sets, s.
+    /// </summary>
+    internal static ModelSelection.Result Refine(ModelSelection.Result coarse, FitData fine, double fineRiseSeconds,
+        double coarseRiseSeconds, CancellationToken cancellation)
+    {
+        var start = coarse.Fit.Model;
+        double variance = ModelSelection.SampleVariance(fine, start);
+        double logN = ModelSelection.LogSampleCount(fine);
+        double nu = fine.IndependentFraction;
+        double Bic(ModelFit f) => nu * f.ResidualSumOfSquares / variance + f.Model.ParameterCount * logN;
+
+        var best = ModelFitter.Fit(start, fine, variance, maximumIterations: Iterations, cancellation: cancellation);
+        double bestBic = Bic(best);
+        int trials = coarse.Trials + 1;
+        bool changed = false;
+        for (int i = 0; i < best.Model.Events.Count; i++)
+        {
+            var m = best.Model;
+            var e = m.Events[i];
+            if (e.Element is not (RunModelElement.ShuntCapacitor or RunModelElement.SeriesInductor)) continue;
+            double zBefore = RunModelBuilder.ImpedanceBefore(m, i);
+            RunModelFit? winner = null;
+            // Two starting lengths: one sharp rise time (a section the sharper data resolve) and half the coarse rise
+            // (the longest a section could be and still have looked lumped).
+            foreach (double tau in new[] { fineRiseSeconds, coarseRiseSeconds / 2 }.Distinct())
+            {
+                var section = Section(e, zBefore, tau);
+                if (section is null) continue;
+                var list = m.Events.ToList();
+                list.RemoveAt(i);
+                list.InsertRange(i, section);
+                var candidate = m.WithEvents(list);
+                var free = FreeAround(candidate, i - 1, i + 2);
+                var fit = ModelFitter.Fit(candidate, fine, variance, free, Iterations, cancellation);
+                trials++;
+                // A section shorter than half the sharper rise is still a lumped spot to these data (two edges closer
+                // than that are not told apart); the extra parameters would only soak up edge-shape misfit.
+                double length = fit.Model.Events[i + 1].RoundTripSeconds - fit.Model.Events[i].RoundTripSeconds;
+                if (length < MinimumSectionRiseTimes * fineRiseSeconds) continue;
+                double bic = Bic(fit);
+                if (bic < bestBic - ModelSelection.EvidenceMargin && (winner is null || bic < winner.Bic)) winner = new RunModelFit(fit, bic);
+            }
+            if (winner is null) continue;
+            (best, bestBic) = (winner.Fit, winner.Bic);
+            changed = true;
+            i++;
+        }
+        if (changed)
+        {
+            best = ModelFitter.Fit(best.Model, fine, variance, maximumIterations: Iterations, cancellation: cancellation);
+            bestBic = Bic(best);
+            trials++;
+        }
+        best = CoincidentEvents.Resolve(best, fine, variance, fineRiseSeconds, ref trials, cancellation);
+        bestBic = Bic(best);
+        var evidence = ModelSelection.EventEvidence(best, fine, variance, logN, fineRiseSeconds);
+        return new ModelSelection.Result(best, variance, bestBic, evidence, trials);
+    }
+
+    private sealed record RunModelFit(ModelFit Fit, double Bic);
+
+    /// <summary>
+    /// The section of round trip τ centred on a lumped spot that has the same area under its reflection: a short line of
+    /// Z₁ in a line of Z reflects Γ ≈ jω(τ/4)(Z₁/Z − Z/Z₁) to first order in ωτ (its excess series L (τ/2)(Z₁ − Z) and shunt
+    /// C (τ/2)(1/Z₁ − 1/Z), the approximation behind stepped-impedance filters: Pozar, <i>Microwave Engineering</i>, 4th ed.,
+    /// §8.6, from memory), which is the reflection of shunt C = (τ/2)(1/Z₁ − Z₁/Z²) or series L = (τ/2)(Z₁ − Z²/Z₁).
+    /// Returns the two boundaries (to Z₁, back to Z), or null when no positive Z₁ fits.
+    /// </summary>
+    private static RunModelEvent[]? Section(RunModelEvent e, double z, double tau)
+    {
+        double t1 = e.RoundTripSeconds - tau / 2, t2 = e.RoundTripSeconds + tau / 2;
+        if (t1 <= 0) return null;
+        double z1;
+        if (e.Element == RunModelElement.ShuntCapacitor)
+        {
+            // Z₁²/Z² + b·Z₁ − 1 = 0 with b = 2C/τ.
+            double b = 2 * e.Value / tau;
+            z1 = z * z * (-b + Math.Sqrt(b * b + 4 / (z * z))) / 2;
+        }
+        else
+        {
+            // Z₁² − b·Z₁ − Z² = 0 with b = 2L/τ.
+            double b = 2 * e.Value / tau;
+            z1 = (b + Math.Sqrt(b * b + 4 * z * z)) / 2;
+        }
+        if (!(z1 > 0) || !double.IsFinite(z1)) return null;
+        return [new RunModelEvent(RunModelElement.Boundary, t1, z1), new RunModelEvent(RunModelElement.Boundary, t2, z)];
+    }
+
+    /// <summary>The edge parameters and events <paramref name="from"/>..<paramref name="to"/> (clamped) free, the rest fixed.</summary>
+    private static bool[] FreeAround(RunModel model, int from, int to)
+    {
+        var free = new bool[model.ParameterCount];
+        for (int g = 0; g < RunModel.GlobalParameterCount; g++) free[g] = true;
+        for (int i = Math.Max(0, from); i <= Math.Min(model.Events.Count - 1, to); i++)
+        {
+            int k = model.TimeParameterIndex(i);
+            free[k] = true;
+            if (model.Events[i].HasValue) free[k + 1] = true;
+        }
+        return free;
+    }
+}
