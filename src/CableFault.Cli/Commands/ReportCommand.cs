@@ -124,7 +124,9 @@ public static class ReportCommand
                 $"wrote {target.Name}: {result.Events.Count} event(s){(match is null ? "" : $" ({match.Unexpected.Count} unexpected, {match.ExpectedCount} as listed, {match.Missing.Count} listed not found)")}, {html.Length / 1024.0:0} kB"));
             if (repair?.Comparison is { Pass: false })
             {
-                context.Error.WriteLine("repair check: FAIL (see the report)");
+                context.Error.WriteLine(repair.Comparison.ReferenceKind == ReferenceKind.Pair
+                    ? "pair check: FAIL, differs from the reference pair (see the report)"
+                    : "repair check: FAIL (see the report)");
                 return CliApp.CheckFailed;
             }
             return CliApp.Success;

@@ -92,8 +92,9 @@ public static class HtmlReport
         if (input.RepairCheck is { Comparison: { } comparison })
         {
             string first = comparison.Reasons.Count > 0 ? " " + ReportNumbers.ConvertMeters(comparison.Reasons[0], input.Unit) : "";
-            html.Append("<p class=\"repair-line\"><strong>Repair check: ").Append(comparison.Pass ? "PASS" : "FAIL").Append(".</strong>")
-                .Append(HtmlText.Escape(first)).Append(" <span class=\"ref\">(see the repair check)</span></p>\n");
+            bool pair = comparison.ReferenceKind == Comparison.ReferenceKind.Pair;
+            html.Append("<p class=\"repair-line\"><strong>").Append(pair ? "Pair check: " : "Repair check: ").Append(comparison.Pass ? "PASS" : "FAIL").Append(".</strong>")
+                .Append(HtmlText.Escape(first)).Append(" <span class=\"ref\">(see the ").Append(pair ? "pair check" : "repair check").Append(")</span></p>\n");
         }
         var others = findings.Skip(nothingUnexpected ? 0 : 1)
             .Where(f => f.Role != FindingRole.BeyondEnd && f.AsBuilt?.Expected != true).ToList();
