@@ -158,6 +158,16 @@ public static class Locator
             }
         }
 
+        // What the fit puts inside the blind zone is the connector and the cable's impedance against the instrument's,
+        // not something a technician can dig for: it is said, not listed.
+        // (The blind zone is at the instrument's port, whatever reference plane an offset or a launch lead sets.)
+        foreach (var inside in located.Where(e => e.RoundTripSeconds + offset < blindSeconds && e.Kind is not (EventKind.Open or EventKind.Short)).ToList())
+        {
+            located.Remove(inside);
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"{EventKindNames.ToJsonName(inside.Kind).Replace('_', ' ')} (ρ {inside.Reflection:+0.###;-0.###}) at the instrument's connector, inside the blind zone ({blindMeters:0.###} m): the cable or connector against the instrument, not located."));
+        }
+
         double rms = Math.Sqrt(fit.ResidualSumOfSquares / data.Samples.Length);
         if (rms > 3 * Math.Sqrt(selection.VarianceVolts2))
             warnings.Add(string.Create(CultureInfo.InvariantCulture,

@@ -14,11 +14,14 @@ internal static class ResolutionRefinement
     /// (each model run then costs about five times as much, and this stage makes few runs).</summary>
     internal const double MaximumRiseTimesPerWindow = 1000;
 
-    /// <summary>Shortest section round trip, in effective rise times, accepted in place of a lumped spot: the separation
-    /// at which two equal edges are still resolved (half of v·t_r/2 one way).</summary>
-    internal const double MinimumSectionRiseTimes = 0.5;
+    /// <summary>Shortest section round trip, in effective rise times, accepted in place of a lumped spot. A section whose
+    /// round trip is shorter than the rise shows as one bump or dip, which a lumped L or C with fewer parameters
+    /// describes as well (the usual reading of a connector or splice; common practice): the extra parameters would only
+    /// soak up edge-shape misfit and tell the technician of a few-centimetre "section" that is a connector.</summary>
+    internal const double MinimumSectionRiseTimes = 1.0;
 
-    /// <summary>Iteration limit of the refit and of each section trial (warm started from the selected model).</summary>
+    /// <summary>Iteration limit of each section trial (warm started from the selected model; the refits have the
+    /// fitter's usual limit).</summary>
     private const int Iterations = 20;
 
     /// <summary>
@@ -35,7 +38,7 @@ internal static class ResolutionRefinement
         double nu = fine.IndependentFraction;
         double Bic(ModelFit f) => nu * f.ResidualSumOfSquares / variance + f.Model.ParameterCount * logN;
 
-        var best = ModelFitter.Fit(start, fine, variance, maximumIterations: Iterations, cancellation: cancellation);
+        var best = ModelFitter.Fit(start, fine, variance, cancellation: cancellation);
         double bestBic = Bic(best);
         int trials = coarse.Trials + 1;
         bool changed = false;
@@ -59,8 +62,7 @@ internal static class ResolutionRefinement
                 var free = FreeAround(candidate, i - 1, i + 2);
                 var fit = ModelFitter.Fit(candidate, fine, variance, free, Iterations, cancellation);
                 trials++;
-                // A section shorter than half the sharper rise is still a lumped spot to these data (two edges closer
-                // than that are not told apart); the extra parameters would only soak up edge-shape misfit.
+                // A section shorter than the sharper rise is still a lumped spot to these data (see MinimumSectionRiseTimes).
                 double length = fit.Model.Events[i + 1].RoundTripSeconds - fit.Model.Events[i].RoundTripSeconds;
                 if (length < MinimumSectionRiseTimes * fineRiseSeconds) continue;
                 double bic = Bic(fit);
@@ -73,7 +75,7 @@ internal static class ResolutionRefinement
         }
         if (changed)
         {
-            best = ModelFitter.Fit(best.Model, fine, variance, maximumIterations: Iterations, cancellation: cancellation);
+            best = ModelFitter.Fit(best.Model, fine, variance, cancellation: cancellation);
             bestBic = Bic(best);
             trials++;
         }
