@@ -47,6 +47,10 @@ internal static class ResolutionRefinement
             var m = best.Model;
             var e = m.Events[i];
             if (e.Element is not (RunModelElement.ShuntCapacitor or RunModelElement.SeriesInductor)) continue;
+            // Only where the lumped spot leaves more residual than the noise allows is a section worth a trial (the rule
+            // the selection's splits follow): a real connector or splice fits the sharper data as it is.
+            double excess = ModelSelection.LocalExcess(best, fine, variance, m.TimeOffsetSeconds + e.RoundTripSeconds, fineRiseSeconds);
+            if (excess < 2 * logN + ModelSelection.EvidenceMargin) continue;
             double zBefore = RunModelBuilder.ImpedanceBefore(m, i);
             RunModelFit? winner = null;
             // Two starting lengths: one sharp rise time (a section the sharper data resolve) and half the coarse rise
