@@ -10,10 +10,9 @@ namespace CableFault.Analysis;
 /// </summary>
 internal static class ResolutionRefinement
 {
-    /// <summary>Most rise times the sharper window may span before it too is smoothed: two and a half times the
-    /// selection's. Each model run then costs about that much more; 1 000 cost twice the time of 500 on the speed trace
-    /// (0.8 s against 0.3 s for this stage) and changed nothing on the 60-run benchmark subset.</summary>
-    internal const double MaximumRiseTimesPerWindow = 500;
+    /// <summary>Most rise times the sharper window may span before it too is smoothed: five times the selection's
+    /// (each model run then costs about five times as much, and this stage makes few runs).</summary>
+    internal const double MaximumRiseTimesPerWindow = 1000;
 
     /// <summary>Shortest section round trip, in effective rise times, accepted in place of a lumped spot. A section whose
     /// round trip is shorter than the rise shows as one bump or dip, which a lumped L or C with fewer parameters
