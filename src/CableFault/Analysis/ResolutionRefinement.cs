@@ -10,8 +10,10 @@ namespace CableFault.Analysis;
 /// </summary>
 internal static class ResolutionRefinement
 {
-    /// <summary>Most rise times the sharper window may span before it too is smoothed: five times the selection's
-    /// (each model run then costs about five times as much, and this stage makes few runs).</summary>
+    /// <summary>Most rise times the sharper window may span before it too is smoothed: five times the selection's, so
+    /// each model run costs about five times as much (this stage makes few runs). Measured trade-off: 500 took this
+    /// stage from 0.8 s to 0.3 s on the speed trace but cost accuracy on the full benchmark (95th percentile 0.787 %
+    /// against 0.734 %, kind accuracy 83.0 % against 83.4 %).</summary>
     internal const double MaximumRiseTimesPerWindow = 1000;
 
     /// <summary>Shortest section round trip, in effective rise times, accepted in place of a lumped spot. A section whose
