@@ -40,9 +40,11 @@ internal static class EventClassifier
     /// <param name="IsLastOnMainLine">True when no other event lies after it on the main line.</param>
     /// <param name="RecordAfterSeconds">Record length after the event, s.</param>
     /// <param name="RiseSeconds">Effective rise time, s.</param>
+    /// <param name="LocalMisfitRatio">Local residual of the fit around the event over the noise RMS (about 1 where the
+    /// model is right).</param>
     internal sealed record Input(RunModelElement Element, double Value, double ImpedanceBeforeOhms, double LogSizeSigma,
         double PeakSignatureVolts, double IncidentLevelVolts, double NoiseRmsVolts, double DeltaBic, bool IsLastOnMainLine,
-        double RecordAfterSeconds, double RiseSeconds);
+        double RecordAfterSeconds, double RiseSeconds, double LocalMisfitRatio = 1);
 
     /// <summary>Kind, reflection, impedance after, size and confidence.</summary>
     internal static (EventKind Kind, double Reflection, double? ImpedanceOhms, double? Value, double Confidence) Classify(Input e)
@@ -51,7 +53,11 @@ internal static class EventClassifier
         double snr = Math.Abs(e.PeakSignatureVolts) / Math.Max(e.NoiseRmsVolts, 1e-300);
         // Posterior odds of "event" against "no event" with equal priors: exp(ΔBIC/2) (Kass & Raftery 1995, §4.1).
         double pReal = 1 / (1 + Math.Exp(-Math.Clamp(e.DeltaBic, -700, 700) / 2));
-        double confidence = pReal * (1 - Math.Exp(-snr / ConfidenceSignalToNoiseScale));
+        // What the model leaves unexplained around the event counts as noise too: an event no larger than that misfit
+        // may be the fit's way of soaking it up, while one far above it (an open end beside a poorly modelled wet
+        // section) stays certain.
+        double snrOverMisfit = snr / Math.Max(1, e.LocalMisfitRatio);
+        double confidence = pReal * (1 - Math.Exp(-snrOverMisfit / ConfidenceSignalToNoiseScale));
         bool sizeKnown = e.Element is RunModelElement.Open or RunModelElement.Short || e.LogSizeSigma <= MaximumLogSizeSigma;
         bool weak = snr < MinimumKindSignalToNoise || !sizeKnown;
 

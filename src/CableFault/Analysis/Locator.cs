@@ -131,10 +131,12 @@ public static class Locator
             double sigmaT = Math.Sqrt(Math.Max(0, covariance[tIndex, tIndex])) * context.ReferenceRiseSeconds;
             double sigmaLog = e.HasValue ? Math.Sqrt(Math.Max(0, covariance[tIndex + 1, tIndex + 1])) : 0;
             bool lastOnMain = i == model.Events.Count - 1;
+            double misfit = ModelSelection.LocalResidualRatio(fit, data, selection.VarianceVolts2,
+                model.TimeOffsetSeconds + e.RoundTripSeconds, riseEffective);
             var (kind, rho, impedance, value, confidence) = EventClassifier.Classify(new EventClassifier.Input(
                 e.Element, e.Value, RunModelBuilder.ImpedanceBefore(model, i), sigmaLog,
                 selection.Events[i].PeakSignatureVolts, incidentLevel, Math.Sqrt(selection.VarianceVolts2),
-                selection.Events[i].DeltaBic, lastOnMain, recordEnd - e.RoundTripSeconds, riseEffective));
+                selection.Events[i].DeltaBic, lastOnMain, recordEnd - e.RoundTripSeconds, riseEffective, misfit));
             double t = e.RoundTripSeconds - offset;
             double d = v * t / 2;
             double sigmaD = Math.Sqrt(Math.Pow(v * sigmaT / 2, 2) + Math.Pow(d * options.VelocityFactorRelativeSigma, 2));

@@ -434,6 +434,24 @@ internal static class ModelSelection
         return nu * chi2 / variance - dof - 3 * Math.Sqrt(2 * dof);
     }
 
+    /// <summary>
+    /// √(χ²/ν) of the residual in [t − 2t_r, t + 4t_r]: the local misfit over what noise explains, about 1 where the model
+    /// is right there and larger where it is not.
+    /// </summary>
+    internal static double LocalResidualRatio(ModelFit fit, FitData data, double variance, double timeSeconds, double riseSeconds)
+    {
+        int from = Math.Max(0, (int)Math.Floor((timeSeconds - 2 * riseSeconds - data.StartTimeSeconds) / data.IntervalSeconds));
+        int to = Math.Min(data.Samples.Length - 1, (int)Math.Ceiling((timeSeconds + 4 * riseSeconds - data.StartTimeSeconds) / data.IntervalSeconds));
+        if (to <= from) return 1;
+        double sum = 0;
+        for (int s = from; s <= to; s++)
+        {
+            double r = data.Samples[s] - fit.ModelSamples[s];
+            sum += r * r;
+        }
+        return Math.Sqrt(sum / variance / (to - from + 1));
+    }
+
     /// <summary>A boundary as the resistor that reflects alike: a drop to Z as shunt R = Z_prev·Z/(Z_prev − Z), a rise to
     /// Z as series R = Z − Z_prev (the line then continues at Z_prev).</summary>
     private static RunModelEvent Resistive(RunModel m, int index)
