@@ -128,9 +128,17 @@ public sealed class HistoryStore : IDisposable
         transaction.Commit();
     }
 
-    private (int ApplicationId, int Version, long Objects) ReadIdentity() =>
-        ((int)(long)Scalar("PRAGMA application_id")!, (int)(long)Scalar("PRAGMA user_version")!,
-            (long)Scalar("SELECT count(*) FROM sqlite_master")!);
+    /// <summary>The file's identity in one statement, so one read snapshot: read as three statements, a process opening
+    /// the file while another creates the schema could see the old application id beside the new tables and take the
+    /// file for a foreign database.</summary>
+    private (int ApplicationId, int Version, long Objects) ReadIdentity()
+    {
+        using var command = Command("SELECT (SELECT application_id FROM pragma_application_id()), " +
+            "(SELECT user_version FROM pragma_user_version()), (SELECT count(*) FROM sqlite_master)");
+        using var reader = command.ExecuteReader();
+        reader.Read();
+        return ((int)reader.GetInt64(0), (int)reader.GetInt64(1), reader.GetInt64(2));
+    }
 
     private void CheckIdentity(int applicationId, int version, long objects)
     {
