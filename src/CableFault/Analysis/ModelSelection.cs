@@ -420,18 +420,11 @@ internal static class ModelSelection
     /// </summary>
     internal static double LocalExcess(ModelFit fit, FitData data, double variance, double timeSeconds, double riseSeconds)
     {
-        int from = Math.Max(0, (int)Math.Floor((timeSeconds - 2 * riseSeconds - data.StartTimeSeconds) / data.IntervalSeconds));
-        int to = Math.Min(data.Samples.Length - 1, (int)Math.Ceiling((timeSeconds + 4 * riseSeconds - data.StartTimeSeconds) / data.IntervalSeconds));
-        if (to <= from) return 0;
-        double chi2 = 0;
-        for (int s = from; s <= to; s++)
-        {
-            double r = data.Samples[s] - fit.ModelSamples[s];
-            chi2 += r * r;
-        }
+        var (sumSquares, count) = LocalResidual(fit, data, timeSeconds, riseSeconds);
+        if (count < 2) return 0;
         double nu = data.IndependentFraction;
-        double dof = nu * (to - from + 1);
-        return nu * chi2 / variance - dof - 3 * Math.Sqrt(2 * dof);
+        double dof = nu * count;
+        return nu * sumSquares / variance - dof - 3 * Math.Sqrt(2 * dof);
     }
 
     /// <summary>
@@ -440,16 +433,22 @@ internal static class ModelSelection
     /// </summary>
     internal static double LocalResidualRatio(ModelFit fit, FitData data, double variance, double timeSeconds, double riseSeconds)
     {
+        var (sumSquares, count) = LocalResidual(fit, data, timeSeconds, riseSeconds);
+        return count < 2 ? 1 : Math.Sqrt(sumSquares / variance / count);
+    }
+
+    /// <summary>Σ(y − model)², V², and the number of samples in [t − 2t_r, t + 4t_r].</summary>
+    private static (double SumSquares, int Count) LocalResidual(ModelFit fit, FitData data, double timeSeconds, double riseSeconds)
+    {
         int from = Math.Max(0, (int)Math.Floor((timeSeconds - 2 * riseSeconds - data.StartTimeSeconds) / data.IntervalSeconds));
         int to = Math.Min(data.Samples.Length - 1, (int)Math.Ceiling((timeSeconds + 4 * riseSeconds - data.StartTimeSeconds) / data.IntervalSeconds));
-        if (to <= from) return 1;
         double sum = 0;
         for (int s = from; s <= to; s++)
         {
             double r = data.Samples[s] - fit.ModelSamples[s];
             sum += r * r;
         }
-        return Math.Sqrt(sum / variance / (to - from + 1));
+        return (sum, Math.Max(0, to - from + 1));
     }
 
     /// <summary>A boundary as the resistor that reflects alike: a drop to Z as shunt R = Z_prev·Z/(Z_prev − Z), a rise to
