@@ -24,9 +24,7 @@ internal static class CoincidentEvents
     internal static ModelFit Resolve(ModelFit best, FitData data, double variance, double effectiveRiseSeconds, ref int trials,
         CancellationToken cancellation)
     {
-        double logN = ModelSelection.LogSampleCount(data);
-        double nu = data.IndependentFraction;
-        double Bic(ModelFit f) => nu * f.ResidualSumOfSquares / variance + f.Model.ParameterCount * logN;
+        double Bic(ModelFit f) => ModelSelection.Criterion(f, data, variance);
         double bestBic = Bic(best);
         for (int guard = 0; guard < 8; guard++)
         {

@@ -69,9 +69,8 @@ internal static class ModelSelection
     internal static Result Select(RunModel initial, FitData data, double effectiveRiseSeconds, CancellationToken cancellation = default)
     {
         double variance = SampleVariance(data, initial);
-        double nu = data.IndependentFraction;
         double logN = LogSampleCount(data);
-        double Bic(ModelFit f) => nu * f.ResidualSumOfSquares / variance + f.Model.ParameterCount * logN;
+        double Bic(ModelFit f) => Criterion(f, data, variance);
         int trials = 0;
         string Key(RunModel m) => string.Join(",", m.Events.Select(e => $"{e.Element}@{Math.Round(e.RoundTripSeconds / effectiveRiseSeconds)}"));
         var tried = new HashSet<string> { Key(initial) };
@@ -349,6 +348,10 @@ internal static class ModelSelection
     /// <summary>σ² of one analysed sample for the criterion: the noise, floored at the modelling accuracy (see remarks).</summary>
     internal static double SampleVariance(FitData data, RunModel model) => Math.Max(data.NoiseRmsVolts * data.NoiseRmsVolts,
         Math.Pow(ModellingFloorRelative * model.Context.ReferenceAmplitudeVolts, 2));
+
+    /// <summary>BIC = ν·RSS/σ² + k·ln(ν·N) of a fit to <paramref name="data"/> (see the class remarks).</summary>
+    internal static double Criterion(ModelFit fit, FitData data, double variance) =>
+        data.IndependentFraction * fit.ResidualSumOfSquares / variance + fit.Model.ParameterCount * LogSampleCount(data);
 
     /// <summary>ln n of the criterion's penalty, n = ν·N independent samples.</summary>
     internal static double LogSampleCount(FitData data) => Math.Log(Math.Max(2, data.IndependentFraction * data.Samples.Length));

@@ -37,8 +37,7 @@ internal static class ResolutionRefinement
         var start = coarse.Fit.Model;
         double variance = ModelSelection.SampleVariance(fine, start);
         double logN = ModelSelection.LogSampleCount(fine);
-        double nu = fine.IndependentFraction;
-        double Bic(ModelFit f) => nu * f.ResidualSumOfSquares / variance + f.Model.ParameterCount * logN;
+        double Bic(ModelFit f) => ModelSelection.Criterion(f, fine, variance);
 
         var best = ModelFitter.Fit(start, fine, variance, cancellation: cancellation);
         double bestBic = Bic(best);
