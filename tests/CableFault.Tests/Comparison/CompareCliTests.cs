@@ -9,17 +9,11 @@ namespace CableFault.Tests.Comparison;
 /// <summary><c>cablefault compare</c>: exit codes (DESIGN.md §4: 0 pass, 1 fail, 2 bad input), JSON shape, outputs.</summary>
 public class CompareCliTests : IDisposable
 {
-    private readonly string _folder = Directory.CreateTempSubdirectory("cf-compare-").FullName;
+    private readonly TraceFolder _traces = new("cf-compare-");
 
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
+    public void Dispose() => _traces.Dispose();
 
-    private string Write(string name, Trace trace)
-    {
-        string path = Path.Combine(_folder, name);
-        using var writer = new StreamWriter(path);
-        TraceCsvWriter.Write(trace, writer);
-        return path;
-    }
+    private string Write(string name, Trace trace) => _traces.Write(name, trace);
 
     private static CableNetwork WithBump() =>
         Run(Segment(8), new SeriesInductor(4e-9), Segment(12), new SeriesInductor(3e-9), Segment(10), RunEnd.Open);
@@ -98,7 +92,7 @@ public class CompareCliTests : IDisposable
     public void MissingFileAndBadToleranceAreBadInput()
     {
         string a = Write("a.csv", Capture(Installed(), 1e-3, 1));
-        AssertOneCleanErrorLine(CliRunner.Run("compare", a, Path.Combine(_folder, "nope.csv")));
+        AssertOneCleanErrorLine(CliRunner.Run("compare", a, Path.Combine(_traces.Folder, "nope.csv")));
         AssertOneCleanErrorLine(CliRunner.Run("compare", a, a, "--tolerance-distance-m", "-1"));
         AssertOneCleanErrorLine(CliRunner.Run("compare", a));
     }
@@ -108,7 +102,7 @@ public class CompareCliTests : IDisposable
     {
         string a = Write("a.csv", Capture(Installed(), 1e-3, 1));
         string b = Write("b.csv", Capture(WithBump(), 1e-3, 3));
-        string png = Path.Combine(_folder, "cmp.png"), svg = Path.Combine(_folder, "cmp.svg");
+        string png = Path.Combine(_traces.Folder, "cmp.png"), svg = Path.Combine(_traces.Folder, "cmp.svg");
         var result = CliRunner.Run("compare", a, b, "--png", png, "--svg", svg);
         Assert.Equal(1, result.ExitCode);
         byte[] bytes = File.ReadAllBytes(png);

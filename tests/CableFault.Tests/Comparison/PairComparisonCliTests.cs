@@ -18,17 +18,11 @@ public class PairComparisonCliTests : IDisposable
     /// test's 0.002, for the same reasons).</summary>
     private const double LengthDifferenceTolerancePct = 0.2;
 
-    private readonly string _folder = Directory.CreateTempSubdirectory("cf-pair-").FullName;
+    private readonly TraceFolder _traces = new("cf-pair-");
 
-    public void Dispose() => Directory.Delete(_folder, recursive: true);
+    public void Dispose() => _traces.Dispose();
 
-    private string Write(string name, Trace trace)
-    {
-        string path = Path.Combine(_folder, name);
-        using var writer = new StreamWriter(path);
-        TraceCsvWriter.Write(trace, writer);
-        return path;
-    }
+    private string Write(string name, Trace trace) => _traces.Write(name, trace);
 
     private string Reference() => Write("pair1.csv", Capture(Pair(NominalOhms, NominalVelocityFactor, rippleSeed: 1), 1e-3, 11, "pair 1"));
 
@@ -69,7 +63,7 @@ public class PairComparisonCliTests : IDisposable
     public void ExplicitToleranceOptionsWinAndTheWordingNamesTheReferencePair()
     {
         // No stretch and a fixed 0.25 m: the healthy pair's end, 1.2 m further electrically, now fails.
-        string svg = Path.Combine(_folder, "pair.svg");
+        string svg = Path.Combine(_traces.Folder, "pair.svg");
         var result = CliRunner.Run("compare", Reference(), Healthy(), "--reference-kind", "pair",
             "--tolerance-length-pct", "0", "--tolerance-distance-pct", "0", "--svg", svg);
         Assert.True(result.ExitCode == 1, result.Output + result.Error);
@@ -97,7 +91,7 @@ public class PairComparisonCliTests : IDisposable
     public void ReportCarriesThePairCheck()
     {
         string suspect = Write("pair3.csv", Capture(Pair(OtherOhms, OtherVelocityFactor, rippleSeed: 2, new ShuntResistor(500), 30), 1.5e-3, 14, "pair 3"));
-        string html = Path.Combine(_folder, "pair3.html");
+        string html = Path.Combine(_traces.Folder, "pair3.html");
         var result = CliRunner.Run("report", suspect, "--baseline", Reference(), "--reference-kind", "pair", "-o", html);
         Assert.True(result.ExitCode == 1, result.Output + result.Error); // the report is written; the check inside it failed
         string text = File.ReadAllText(html);

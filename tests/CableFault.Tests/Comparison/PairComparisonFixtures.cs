@@ -24,7 +24,7 @@ internal static class PairComparisonFixtures
     internal const int RipplePieces = 16;
 
     /// <summary>Ripple of Z₀ along a pair, as a fraction: ±1 % uniform (from memory; see
-    /// <see cref="Comparison.CompareTolerances.PairMinimumBand"/>).</summary>
+    /// <see cref="CableFault.Comparison.CompareTolerances.PairMinimumBand"/>).</summary>
     internal const double RippleFraction = 0.01;
 
     internal const double RiseSeconds = 0.5e-9;
