@@ -43,27 +43,27 @@ internal static class ResolutionRefinement
         double bestBic = Bic(best);
         int trials = coarse.Trials + 1;
         bool changed = false;
-        for (int i = 0; i < best.Model.Events.Count; i++)
+        int i = 0;
+        while (i < best.Model.Events.Count)
         {
             var m = best.Model;
-            var e = m.Events[i];
-            if (e.Element is not (RunModelElement.ShuntCapacitor or RunModelElement.SeriesInductor)) continue;
+            if (!ReactiveSections.IsReactive(m.Events[i].Element)) { i++; continue; }
+            int last = ReactiveSections.ClusterEnd(m, i, fineRiseSeconds);
             // Only where the lumped spot leaves more residual than the noise allows is a section worth a trial (the rule
-            // the selection's splits follow): a real connector or splice fits the sharper data as it is.
-            double excess = ModelSelection.LocalExcess(best, fine, variance, m.TimeOffsetSeconds + e.RoundTripSeconds, fineRiseSeconds);
-            if (excess < 2 * logN + ModelSelection.EvidenceMargin) continue;
-            double zBefore = RunModelBuilder.ImpedanceBefore(m, i);
+            // the selection's splits follow): a real connector or splice fits the sharper data as it is. A row of spots is
+            // always tried (see ReactiveSections).
+            double excess = last > i ? double.PositiveInfinity
+                : ModelSelection.LocalExcess(best, fine, variance, m.TimeOffsetSeconds + m.Events[i].RoundTripSeconds, fineRiseSeconds);
+            if (excess < 2 * logN + ModelSelection.EvidenceMargin) { i = last + 1; continue; }
+            double span = m.Events[last].RoundTripSeconds - m.Events[i].RoundTripSeconds;
+            int spotParameters = 2 * (last - i + 1);
             RunModelFit? winner = null;
-            // Two starting lengths: one sharp rise time (a section the sharper data resolve) and half the coarse rise
-            // (the longest a section could be and still have looked lumped).
-            foreach (double tau in new[] { fineRiseSeconds, coarseRiseSeconds / 2 }.Distinct())
+            // Two starting lengths beyond the row's span: one sharp rise time (a section the sharper data resolve) and
+            // half the coarse rise (the longest a section could be and still have looked lumped).
+            foreach (double tau in new[] { span + fineRiseSeconds, span + coarseRiseSeconds / 2 }.Distinct())
             {
-                var section = Section(e, zBefore, tau);
-                if (section is null) continue;
-                var list = m.Events.ToList();
-                list.RemoveAt(i);
-                list.InsertRange(i, section);
-                var candidate = m.WithEvents(list);
+                var candidate = ReactiveSections.Replace(m, i, last, tau);
+                if (candidate is null) continue;
                 var free = FreeAround(candidate, i - 1, i + 2);
                 var fit = ModelFitter.Fit(candidate, fine, variance, free, Iterations, cancellation);
                 trials++;
@@ -71,12 +71,14 @@ internal static class ResolutionRefinement
                 double length = fit.Model.Events[i + 1].RoundTripSeconds - fit.Model.Events[i].RoundTripSeconds;
                 if (length < MinimumSectionRiseTimes * fineRiseSeconds) continue;
                 double bic = Bic(fit);
-                if (bic < bestBic - ModelSelection.EvidenceMargin && (winner is null || bic < winner.Bic)) winner = new RunModelFit(fit, bic);
+                // Four parameters against the spots' two each: fewer parameters need only not lose, more must win.
+                double margin = spotParameters > 4 ? -ModelSelection.EvidenceMargin : spotParameters == 4 ? 0 : ModelSelection.EvidenceMargin;
+                if (bic < bestBic - margin && (winner is null || bic < winner.Bic)) winner = new RunModelFit(fit, bic);
             }
-            if (winner is null) continue;
+            if (winner is null) { i = last + 1; continue; }
             (best, bestBic) = (winner.Fit, winner.Bic);
             changed = true;
-            i++;
+            i += 2;
         }
         if (changed)
         {
@@ -91,34 +93,6 @@ internal static class ResolutionRefinement
     }
 
     private sealed record RunModelFit(ModelFit Fit, double Bic);
-
-    /// <summary>
-    /// The section of round trip τ centred on a lumped spot that has the same area under its reflection: a short line of
-    /// Z₁ in a line of Z reflects Γ ≈ jω(τ/4)(Z₁/Z − Z/Z₁) to first order in ωτ (its excess series L (τ/2)(Z₁ − Z) and shunt
-    /// C (τ/2)(1/Z₁ − 1/Z), the approximation behind stepped-impedance filters: Pozar, <i>Microwave Engineering</i>, 4th ed.,
-    /// §8.6, from memory), which is the reflection of shunt C = (τ/2)(1/Z₁ − Z₁/Z²) or series L = (τ/2)(Z₁ − Z²/Z₁).
-    /// Returns the two boundaries (to Z₁, back to Z), or null when no positive Z₁ fits.
-    /// </summary>
-    private static RunModelEvent[]? Section(RunModelEvent e, double z, double tau)
-    {
-        double t1 = e.RoundTripSeconds - tau / 2, t2 = e.RoundTripSeconds + tau / 2;
-        if (t1 <= 0) return null;
-        double z1;
-        if (e.Element == RunModelElement.ShuntCapacitor)
-        {
-            // Z₁²/Z² + b·Z₁ − 1 = 0 with b = 2C/τ.
-            double b = 2 * e.Value / tau;
-            z1 = z * z * (-b + Math.Sqrt(b * b + 4 / (z * z))) / 2;
-        }
-        else
-        {
-            // Z₁² − b·Z₁ − Z² = 0 with b = 2L/τ.
-            double b = 2 * e.Value / tau;
-            z1 = (b + Math.Sqrt(b * b + 4 * z * z)) / 2;
-        }
-        if (!(z1 > 0) || !double.IsFinite(z1)) return null;
-        return [new RunModelEvent(RunModelElement.Boundary, t1, z1), new RunModelEvent(RunModelElement.Boundary, t2, z)];
-    }
 
     /// <summary>The edge parameters and events <paramref name="from"/>..<paramref name="to"/> (clamped) free, the rest fixed.</summary>
     private static bool[] FreeAround(RunModel model, int from, int to)

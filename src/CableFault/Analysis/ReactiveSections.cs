@@ -1,0 +1,75 @@
+namespace CableFault.Analysis;
+
+/// <summary>
+/// A short section of other cable and lumped reactive spots look alike at the resolution of an edge: a section of higher
+/// impedance a few rise times long reads first as a series L (or, after splits, as a row of them), a lower one as a shunt
+/// C. But a row of lumped spots is not the same run: each spot also delays what follows by its time constant (Z·C/2 or
+/// L/(2Z)), so a section read as spots puts every later event too far. These helpers build the section hypothesis that
+/// <see cref="ModelSelection"/> and <see cref="ResolutionRefinement"/> test against the spots by the information criterion.
+/// </summary>
+internal static class ReactiveSections
+{
+    /// <summary>Largest gap between neighbouring spots of one kind, in effective rise times, for them to be read as one
+    /// stretch: spots further apart are separate places (a section that long would show its flat top and not be read as
+    /// spots).</summary>
+    internal const double ClusterGapRiseTimes = 2;
+
+    /// <summary>Index of the last event of the run of shunt-C or series-L events of one kind that starts at
+    /// <paramref name="first"/>, neighbours at most <see cref="ClusterGapRiseTimes"/> effective rises apart
+    /// (<paramref name="first"/> itself for a single spot).</summary>
+    internal static int ClusterEnd(RunModel m, int first, double effectiveRiseSeconds)
+    {
+        int last = first;
+        while (last + 1 < m.Events.Count && m.Events[last + 1].Element == m.Events[first].Element
+               && m.Events[last + 1].RoundTripSeconds - m.Events[last].RoundTripSeconds <= ClusterGapRiseTimes * effectiveRiseSeconds)
+            last++;
+        return last;
+    }
+
+    /// <summary>True for a shunt capacitor or a series inductor.</summary>
+    internal static bool IsReactive(RunModelElement element) =>
+        element is RunModelElement.ShuntCapacitor or RunModelElement.SeriesInductor;
+
+    /// <summary>
+    /// The model with spots <paramref name="first"/>..<paramref name="last"/> replaced by one section of round trip
+    /// <paramref name="tauSeconds"/> centred on them, of the impedance that gives the same area under the reflection as
+    /// their summed C or L (see <see cref="SectionImpedance"/>), and the later events moved later by the delay the spots
+    /// took up; null when no section fits (it would start at or before
+    /// the reference plane, or no positive impedance matches).
+    /// </summary>
+    internal static RunModel? Replace(RunModel m, int first, int last, double tauSeconds)
+    {
+        var spots = m.Events.Skip(first).Take(last - first + 1).ToList();
+        double total = spots.Sum(e => e.Value);
+        double centre = spots.Sum(e => e.Value * e.RoundTripSeconds) / total;
+        double t1 = centre - tauSeconds / 2, t2 = centre + tauSeconds / 2;
+        if (t1 <= 0 || (first > 0 && t1 <= m.Events[first - 1].RoundTripSeconds)) return null;
+        if (last + 1 < m.Events.Count && t2 >= m.Events[last + 1].RoundTripSeconds) return null;
+        double z = RunModelBuilder.ImpedanceBefore(m, first);
+        double z1 = SectionImpedance(spots[0].Element, total, z, tauSeconds);
+        if (!(z1 > 0) || !double.IsFinite(z1)) return null;
+        // Each spot delays what lies beyond it by its transmission's low-frequency group delay, Z·C/2 or L/(2Z) each way
+        // (T = 1/(1 + jωτ)), so the fit placed the later events that much early; a section of the same cable adds no
+        // delay, so they move that much later.
+        double delay = spots.Sum(e => 2 * (e.Element == RunModelElement.ShuntCapacitor ? z * e.Value / 2 : e.Value / (2 * z)));
+        var list = m.Events.Select((e, k) => k > last ? e with { RoundTripSeconds = e.RoundTripSeconds + delay } : e).ToList();
+        list.RemoveRange(first, last - first + 1);
+        list.InsertRange(first, [new RunModelEvent(RunModelElement.Boundary, t1, z1), new RunModelEvent(RunModelElement.Boundary, t2, z)]);
+        return m.WithEvents(list);
+    }
+
+    /// <summary>
+    /// Impedance Z₁ of a section of round trip τ in a line of Z with the same area under its reflection as a shunt C or
+    /// series L: a short line of Z₁ reflects Γ ≈ jω(τ/4)(Z₁/Z − Z/Z₁) to first order in ωτ (its excess series L
+    /// (τ/2)(Z₁ − Z) and shunt C (τ/2)(1/Z₁ − 1/Z), the approximation behind stepped-impedance filters: Pozar,
+    /// <i>Microwave Engineering</i>, 4th ed., §8.6, from memory), which is the reflection of C = (τ/2)(1/Z₁ − Z₁/Z²) or
+    /// L = (τ/2)(Z₁ − Z²/Z₁). Solved for Z₁: Z₁²/Z² + b·Z₁ − 1 = 0 (C, b = 2C/τ) or Z₁² − b·Z₁ − Z² = 0 (L, b = 2L/τ).
+    /// </summary>
+    internal static double SectionImpedance(RunModelElement element, double value, double z, double tauSeconds)
+    {
+        double b = 2 * value / tauSeconds;
+        return element == RunModelElement.ShuntCapacitor
+            ? z * z * (-b + Math.Sqrt(b * b + 4 / (z * z))) / 2
+            : (b + Math.Sqrt(b * b + 4 * z * z)) / 2;
+    }
+}
