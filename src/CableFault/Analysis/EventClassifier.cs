@@ -73,6 +73,10 @@ internal static class EventClassifier
             // tap is by far the likelier cause of exactly Z₀ across the line.
             RunModelElement.ShuntResistor when Math.Abs(e.Value / z - 1) <= MatchedBranchRelativeTolerance
                 => (EventKind.Tap, -z / (2 * e.Value + z), null, e.Value),
+            // A resistor with nothing after it but matched line (and plenty of record) loads the port exactly as a
+            // resistive end of Z‖R or Z + R does, at every frequency: the run is read as ending there, as for a step.
+            RunModelElement.ShuntResistor when EndsInResistance(e) => (EventKind.Termination, -z / (2 * e.Value + z), null, z * e.Value / (z + e.Value)),
+            RunModelElement.SeriesResistor when EndsInResistance(e) => (EventKind.Termination, e.Value / (e.Value + 2 * z), null, z + e.Value),
             RunModelElement.ShuntResistor => (EventKind.PartialShort, -z / (2 * e.Value + z), null, e.Value),
             RunModelElement.SeriesResistor => (EventKind.SeriesResistance, e.Value / (e.Value + 2 * z), null, e.Value),
             // Two equal lines in parallel, Z/2 on a line of Z: ρ = −1/3 (DESIGN.md §2).
@@ -83,6 +87,10 @@ internal static class EventClassifier
         return (kind, rho, impedance, value, Math.Clamp(confidence, 0, 1));
     }
 
+    /// <summary>True when nothing follows the event on the main line and the record runs on for at least
+    /// <see cref="TerminationTailRiseTimes"/> rise times after it.</summary>
+    private static bool EndsInResistance(Input e) => e.IsLastOnMainLine && e.RecordAfterSeconds >= TerminationTailRiseTimes * e.RiseSeconds;
+
     private static (EventKind, double, double?, double?) Boundary(Input e, double z)
     {
         // ρ = (Z − Z_prev)/(Z + Z_prev) (Pozar, Microwave Engineering, 4th ed., eq. 2.35).
@@ -91,7 +99,7 @@ internal static class EventClassifier
         if (rho <= -EndReflection) return (EventKind.Short, rho, null, null);
         // A lasting step with nothing after it and plenty of record: the run ends in a resistance of that many ohms
         // (a matched line of Z behaves as a resistor Z for a step).
-        if (e.IsLastOnMainLine && e.RecordAfterSeconds >= TerminationTailRiseTimes * e.RiseSeconds)
+        if (EndsInResistance(e))
             return (EventKind.Termination, rho, null, e.Value);
         return (rho > 0 ? EventKind.ImpedanceRise : EventKind.ImpedanceDrop, rho, e.Value, null);
     }
