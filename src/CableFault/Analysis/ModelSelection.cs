@@ -39,6 +39,13 @@ internal static class ModelSelection
     /// hypothesis removes: each returns weaker by the junction's transmission, so by the fourth it is mostly lost.</summary>
     private const int TapEchoesRemoved = 4;
 
+    /// <summary>BIC units a cut at a total reflection may add beyond doubling the criterion before it is refused (see
+    /// TruncateAtTotalReflection in <see cref="Select"/>).</summary>
+    private const double TruncationSlack = 100;
+
+    /// <summary>Most rounds that add a missed event (each may add one).</summary>
+    private const int MaximumInsertionRounds = 3;
+
     /// <summary>Most split rounds (each may split one event).</summary>
     private const int MaximumSplitRounds = 4;
 
@@ -169,8 +176,16 @@ internal static class ModelSelection
 
         TrySections();
 
-        // Split where the residual around an event is larger than the noise allows.
+        // Add an event where a stretch of residual away from every event is larger than the noise allows (see MissingEvents).
         int splits = 0;
+        for (int round = 0; round < MaximumInsertionRounds; round++)
+        {
+            var (proposals, at) = MissingEvents.Propose(best, data, variance, effectiveRiseSeconds, 2 * logN + EvidenceMargin);
+            if (proposals.Count == 0 || !TryBest(proposals, simpler: false, at)) break;
+            splits++;
+        }
+
+        // Split where the residual around an event is larger than the noise allows.
         for (int round = 0; round < MaximumSplitRounds; round++)
         {
             var m = best.Model;
@@ -273,6 +288,13 @@ internal static class ModelSelection
             {
                 var m = best.Model;
                 var e = m.Events[i];
+                // A capacitive spot may be a tap with an open branch longer than a rise (see ReactiveSections.AsTap);
+                // same parameter count, so the tap must win by the margin.
+                if (ReactiveSections.AsTap(m, i, effectiveRiseSeconds) is RunModel tapped)
+                {
+                    TryAccept(tapped, simpler: false, i);
+                    continue;
+                }
                 if (e.Element is not (RunModelElement.Boundary or RunModelElement.ShuntResistor) || i == m.Events.Count - 1) continue;
                 double rho = LocalReflection(m, i);
                 if (rho < 0)
@@ -304,6 +326,10 @@ internal static class ModelSelection
                             var cleared = tapList.Where(x => x.RoundTripSeconds <= e.RoundTripSeconds || x.RoundTripSeconds > m.Events[j].RoundTripSeconds).ToList();
                             if (cleared.Count < tapList.Count) variants.Add(m.WithEvents(cleared));
                         }
+                        // The first fit may have put no upward event at the branch end's echo (a short branch merges
+                        // into the junction's drop and the rest is spread over small spots): a scan of branch lengths
+                        // picks a start from the data.
+                        if (TapScan(m, i, data, effectiveRiseSeconds) is RunModel scanned) variants.Add(scanned);
                     }
                     if (variants.Count > 0 && TryBest(variants, simpler: true, i)) continue;
                 }
@@ -335,9 +361,18 @@ internal static class ModelSelection
             }
             list.RemoveAll(e => e.RoundTripSeconds > recordEnd);
             if (list.Count == m.Events.Count && list.Zip(m.Events).All(p => p.First == p.Second)) return;
-            best = ModelFitter.Fit(m.WithEvents(list), data, variance, cancellation: cancellation);
-            bestBic = Bic(best);
+            var truncated = ModelFitter.Fit(m.WithEvents(list), data, variance, cancellation: cancellation);
             trials++;
+            // Unless the run beyond plainly goes on: a narrow, extreme pair of boundaries (a tap or a short section the
+            // fit bent out of shape) is no end, and cutting there leaves most of the trace unexplained. Later junk from a
+            // slightly wrong loss model costs far less than doubling the criterion.
+            double truncatedBic = Bic(truncated);
+            if (at >= 0 && !m.Events[at].EndsRun && truncatedBic > 2 * bestBic + TruncationSlack)
+            {
+                DebugTrace?.Invoke($"truncation at {at} refused: bic {truncatedBic:0.0} vs {bestBic:0.0}");
+                return;
+            }
+            (best, bestBic) = (truncated, truncatedBic);
         }
 
         void Prune()
@@ -366,6 +401,34 @@ internal static class ModelSelection
                 if (!TryAccept(best.Model.WithEvents(list), simpler: true, weakest - 1, weakest)) break;
             }
         }
+    }
+
+    /// <summary>Branch round trips the tap scan tries, in effective rise times (geometric, 1 to 40).</summary>
+    private static readonly double[] TapScanRiseTimes = Enumerable.Range(0, 14).Select(k => Math.Pow(40, k / 13.0)).ToArray();
+
+    /// <summary>
+    /// Event <paramref name="index"/> as a tap, with the branch round trip (of <see cref="TapScanRiseTimes"/>) whose model
+    /// leaves the least residual unrefitted; the events up to the branch end's first echo and at its later echoes go with
+    /// it (they are what the first fit made of the branch). One model run per length tried; null when none fits.
+    /// </summary>
+    private static RunModel? TapScan(RunModel m, int index, FitData data, double effectiveRiseSeconds)
+    {
+        var e = m.Events[index];
+        RunModel? best = null;
+        double bestRss = double.PositiveInfinity;
+        foreach (double units in TapScanRiseTimes)
+        {
+            double branch = units * effectiveRiseSeconds;
+            bool Covered(RunModelEvent x) =>
+                x.RoundTripSeconds - e.RoundTripSeconds <= branch + 0.75 * effectiveRiseSeconds
+                || Enumerable.Range(2, TapEchoesRemoved - 1).Any(k => Math.Abs(x.RoundTripSeconds - e.RoundTripSeconds - k * branch) < 0.75 * effectiveRiseSeconds);
+            var list = m.Events.Select((x, k) => k == index ? e with { Element = RunModelElement.Tap, Value = branch } : x)
+                .Where((x, k) => k <= index || !Covered(x)).ToList();
+            var candidate = m.WithEvents(list);
+            double rss = ModelFitter.ResidualSumOfSquares(candidate, data);
+            if (rss < bestRss) { bestRss = rss; best = candidate; }
+        }
+        return best;
     }
 
     /// <summary>True when event <paramref name="j"/> reflects upwards (an open, a rise, a series L or R).</summary>

@@ -72,4 +72,22 @@ internal static class ReactiveSections
             ? z * z * (-b + Math.Sqrt(b * b + 4 / (z * z))) / 2
             : (b + Math.Sqrt(b * b + 4 * z * z)) / 2;
     }
+
+    /// <summary>
+    /// The model with shunt C <paramref name="index"/> replaced by a tap whose open branch has the same low-frequency
+    /// admittance: an open stub of length ℓ on a line of Z has input admittance j·tan(βℓ)/Z ≈ jωℓ/(vZ) (Pozar,
+    /// <i>Microwave Engineering</i>, 4th ed., §2.3, from memory), a capacitance C = ℓ/(vZ), so its round trip is
+    /// τ = 2ℓ/v = 2·Z·C. Null when that round trip is shorter than <paramref name="minimumBranchSeconds"/> (there the stub
+    /// is the capacitance it looks like).
+    /// </summary>
+    internal static RunModel? AsTap(RunModel m, int index, double minimumBranchSeconds)
+    {
+        var e = m.Events[index];
+        if (e.Element != RunModelElement.ShuntCapacitor) return null;
+        double branch = 2 * RunModelBuilder.ImpedanceBefore(m, index) * e.Value;
+        if (!(branch >= minimumBranchSeconds)) return null;
+        var list = m.Events.ToList();
+        list[index] = e with { Element = RunModelElement.Tap, Value = branch };
+        return m.WithEvents(list);
+    }
 }

@@ -27,8 +27,8 @@ internal static class ResolutionRefinement
     private const int Iterations = 20;
 
     /// <summary>
-    /// Refits <paramref name="coarse"/> on <paramref name="fine"/> and replaces lumped C/L spots by sections where the
-    /// sharper data say so. <paramref name="fineRiseSeconds"/> and <paramref name="coarseRiseSeconds"/> are the effective
+    /// Refits <paramref name="coarse"/> on <paramref name="fine"/> and replaces lumped C/L spots by sections (or a C by a
+    /// tap) where the sharper data say so. <paramref name="fineRiseSeconds"/> and <paramref name="coarseRiseSeconds"/> are the effective
     /// rise times of the two data sets, s.
     /// </summary>
     internal static ModelSelection.Result Refine(ModelSelection.Result coarse, FitData fine, double fineRiseSeconds,
@@ -75,10 +75,24 @@ internal static class ResolutionRefinement
                 double margin = spotParameters > 4 ? -ModelSelection.EvidenceMargin : spotParameters == 4 ? 0 : ModelSelection.EvidenceMargin;
                 if (bic < bestBic - margin && (winner is null || bic < winner.Bic)) winner = new RunModelFit(fit, bic);
             }
+            // A capacitive spot may also be a tap whose branch the coarse look could not resolve; a change of kind with
+            // as many parameters must win by the margin.
+            bool tapWon = false;
+            if (last == i && ReactiveSections.AsTap(m, i, fineRiseSeconds) is RunModel tap)
+            {
+                var fit = ModelFitter.Fit(tap, fine, variance, FreeAround(tap, i - 1, i + 1), Iterations, cancellation);
+                trials++;
+                double bic = Bic(fit);
+                if (bic < bestBic - ModelSelection.EvidenceMargin && (winner is null || bic < winner.Bic))
+                {
+                    winner = new RunModelFit(fit, bic);
+                    tapWon = true;
+                }
+            }
             if (winner is null) { i = last + 1; continue; }
             (best, bestBic) = (winner.Fit, winner.Bic);
             changed = true;
-            i += 2;
+            i += tapWon ? 1 : 2;
         }
         if (changed)
         {
