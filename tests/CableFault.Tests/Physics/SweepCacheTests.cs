@@ -6,7 +6,7 @@ namespace CableFault.Tests.Physics;
 
 /// <summary>
 /// The fit's fast path through the forward model (per-bin quantities kept in a <see cref="SweepCache"/>, its own inverse
-/// FFT) must give the samples of the plain path: it only reorders and reuses the same arithmetic.
+/// FFT, a phasor recurrence for lossless segments) must give the samples of the plain path.
 /// </summary>
 public class SweepCacheTests
 {
