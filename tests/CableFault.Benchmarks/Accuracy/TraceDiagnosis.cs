@@ -1,0 +1,37 @@
+using System.Globalization;
+using CableFault.Analysis;
+using CableFault.Traces;
+
+namespace CableFault.Benchmarks.Accuracy;
+
+/// <summary>
+/// `diagnose FILE VF Z0`: locate one trace file with every hypothesis the model selection tries written out (the
+/// <c>--only</c> diagnosis of the accuracy benchmark, for a trace that is not one of its cases).
+/// </summary>
+public static class TraceDiagnosis
+{
+    public static int Run(string[] args)
+    {
+        if (args.Length < 3)
+        {
+            Console.Error.WriteLine("diagnose: use diagnose FILE VF Z0");
+            return 2;
+        }
+        Trace trace;
+        using (var stream = File.OpenRead(args[0])) trace = TraceCsvReader.Read(stream, args[0]);
+        var options = new LocateOptions
+        {
+            VelocityFactor = double.Parse(args[1], CultureInfo.InvariantCulture),
+            ImpedanceOhms = double.Parse(args[2], CultureInfo.InvariantCulture),
+        };
+        ModelSelection.DebugTrace = m => Console.WriteLine("    " + m);
+        long before = RunModel.SimulationCount;
+        var watch = System.Diagnostics.Stopwatch.StartNew();
+        var result = Locator.Locate(trace, options);
+        foreach (var e in result.Events)
+            Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {e.DistanceMeters,9:0.000} m  {EventKindNames.ToJsonName(e.Kind),-18} ρ {e.Reflection:+0.000;-0.000}  conf {e.Confidence:0.00}"));
+        Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {watch.Elapsed.TotalSeconds:0.000} s, {RunModel.SimulationCount - before} forward runs; {result.Fit.Message}"));
+        foreach (var w in result.Warnings) Console.WriteLine("  warning: " + w);
+        return 0;
+    }
+}
