@@ -215,6 +215,7 @@ internal static class ModelSelection
         }
 
         Prune();
+        ExtremePairsToSpots();
         TruncateAtTotalReflection();
         var resolved = CoincidentEvents.Resolve(best, data, variance, effectiveRiseSeconds, ref trials, cancellation);
         if (!ReferenceEquals(resolved, best)) (best, bestBic) = (resolved, Bic(resolved));
@@ -267,6 +268,14 @@ internal static class ModelSelection
             while (i < best.Model.Events.Count)
             {
                 var m = best.Model;
+                // A narrow pair of boundaries that returns may be a spot (or, if capacitive, a tap) the fit bent into an
+                // extreme section; fewer parameters, so it need only not lose.
+                if (ReactiveSections.ToSpot(m, i, 2 * effectiveRiseSeconds) is RunModel spot)
+                {
+                    var spots = new List<RunModel> { spot };
+                    if (ReactiveSections.AsTap(spot, i, effectiveRiseSeconds) is RunModel tap) spots.Add(tap);
+                    if (TryBest(spots, simpler: true, i)) continue;
+                }
                 if (!ReactiveSections.IsReactive(m.Events[i].Element)) { i++; continue; }
                 int last = ReactiveSections.ClusterEnd(m, i, effectiveRiseSeconds);
                 double span = m.Events[last].RoundTripSeconds - m.Events[i].RoundTripSeconds;
@@ -278,6 +287,21 @@ internal static class ModelSelection
                 bool accepted = candidates.Count > 0 && TryBest(candidates, simpler: last - i + 1 > 2, i);
                 acceptIf = null;
                 i = accepted ? i + 2 : last + 1;
+            }
+        }
+
+        // A narrow pair of boundaries to |ρ| beyond the end threshold and back would be reported as an open and a short in
+        // the middle of the run; later moves can squeeze a section into one. It is tried as the spot it stands for.
+        void ExtremePairsToSpots()
+        {
+            for (int i = 0; i + 1 < best.Model.Events.Count; i++)
+            {
+                var m = best.Model;
+                if (m.Events[i].Element != RunModelElement.Boundary || Math.Abs(LocalReflection(m, i)) < EventClassifier.EndReflection) continue;
+                if (ReactiveSections.ToSpot(m, i, 2 * effectiveRiseSeconds) is not RunModel spot) continue;
+                var spots = new List<RunModel> { spot };
+                if (ReactiveSections.AsTap(spot, i, effectiveRiseSeconds) is RunModel tap) spots.Add(tap);
+                TryBest(spots, simpler: true, i);
             }
         }
 

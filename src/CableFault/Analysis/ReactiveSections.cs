@@ -90,4 +90,39 @@ internal static class ReactiveSections
         list[index] = e with { Element = RunModelElement.Tap, Value = branch };
         return m.WithEvents(list);
     }
+
+    /// <summary>Largest relative difference between the impedance before a narrow boundary pair and after it for the pair
+    /// to count as an excursion that returns (a spot), rather than a change of line.</summary>
+    internal const double ReturnRelativeTolerance = 0.2;
+
+    /// <summary>
+    /// The reverse of <see cref="Replace"/>: boundaries <paramref name="first"/> and <paramref name="first"/> + 1, at most
+    /// <paramref name="maximumSeconds"/> apart and returning to within <see cref="ReturnRelativeTolerance"/> of the
+    /// impedance before them, as the one lumped spot of the same reflection area (series L = (τ/2)(Z₁ − Z²/Z₁) for a higher
+    /// Z₁, shunt C = (τ/2)(1/Z₁ − Z₁/Z²) for a lower one) at their centre, the later events moved earlier by the delay
+    /// the spot adds. A fit that cannot place a few-rise-time excursion often makes it a narrow pair of extreme
+    /// boundaries (ρ near ±1), which would read as an open or a short in the middle of a run. Null when the pair does
+    /// not qualify.
+    /// </summary>
+    internal static RunModel? ToSpot(RunModel m, int first, double maximumSeconds)
+    {
+        if (first + 1 >= m.Events.Count) return null;
+        RunModelEvent a = m.Events[first], b = m.Events[first + 1];
+        if (a.Element != RunModelElement.Boundary || b.Element != RunModelElement.Boundary) return null;
+        double tau = b.RoundTripSeconds - a.RoundTripSeconds;
+        if (!(tau > 0) || tau > maximumSeconds) return null;
+        double z = RunModelBuilder.ImpedanceBefore(m, first), z1 = a.Value;
+        if (Math.Abs(b.Value / z - 1) > ReturnRelativeTolerance || z1 == z) return null;
+        var spot = z1 > z
+            ? new RunModelEvent(RunModelElement.SeriesInductor, (a.RoundTripSeconds + b.RoundTripSeconds) / 2, tau / 2 * (z1 - z * z / z1))
+            : new RunModelEvent(RunModelElement.ShuntCapacitor, (a.RoundTripSeconds + b.RoundTripSeconds) / 2, tau / 2 * (1 / z1 - z1 / (z * z)));
+        if (!(spot.Value > 0) || !double.IsFinite(spot.Value)) return null;
+        double delay = 2 * (spot.Element == RunModelElement.ShuntCapacitor ? z * spot.Value / 2 : spot.Value / (2 * z));
+        var list = m.Events.Select((e, k) => k > first + 1 ? e with { RoundTripSeconds = e.RoundTripSeconds - delay } : e).ToList();
+        list.RemoveRange(first, 2);
+        list.Insert(first, spot);
+        // The line after the pair keeps the impedance the second boundary set only if it differs from Z; a spot returns
+        // to Z exactly, so a later boundary's impedance is unchanged and the small difference is left to the fit.
+        return m.WithEvents(list);
+    }
 }

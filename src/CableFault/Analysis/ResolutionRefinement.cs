@@ -94,6 +94,27 @@ internal static class ResolutionRefinement
             changed = true;
             i += tapWon ? 1 : 2;
         }
+        // A narrow pair of boundaries to |ρ| beyond the end threshold and back (an open and a short in mid-run) is tried as
+        // the spot it stands for (see ReactiveSections.ToSpot); fewer parameters, so it need only not lose.
+        for (int k = 0; k + 1 < best.Model.Events.Count; k++)
+        {
+            var m = best.Model;
+            if (m.Events[k].Element != RunModelElement.Boundary
+                || Math.Abs(ModelSelection.LocalReflection(m, k)) < EventClassifier.EndReflection) continue;
+            if (ReactiveSections.ToSpot(m, k, 2 * fineRiseSeconds) is not RunModel spot) continue;
+            var candidates = new List<RunModel> { spot };
+            if (ReactiveSections.AsTap(spot, k, fineRiseSeconds) is RunModel tap) candidates.Add(tap);
+            foreach (var candidate in candidates)
+            {
+                var fit = ModelFitter.Fit(candidate, fine, variance, FreeAround(candidate, k - 1, k + 1), Iterations, cancellation);
+                trials++;
+                double bic = Bic(fit);
+                if (bic >= bestBic + ModelSelection.EvidenceMargin) continue;
+                (best, bestBic) = (fit, bic);
+                changed = true;
+                break;
+            }
+        }
         if (changed)
         {
             best = ModelFitter.Fit(best.Model, fine, variance, cancellation: cancellation);
