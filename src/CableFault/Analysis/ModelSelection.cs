@@ -247,10 +247,7 @@ internal static class ModelSelection
                 for (int j = 0; j < i; j++)
                 {
                     if (m.Events[j].Element != RunModelElement.Boundary) continue;
-                    var alt = Resistive(m, j);
-                    var list = truncated.ToList();
-                    list[j] = alt;
-                    variants.Add(list);
+                    variants.Add(WithResistor(truncated, m, j));
                 }
                 if (TryBest(variants.Select(v => m.WithEvents(v)).ToList(), simpler: true, 0)) return;
             }
@@ -324,12 +321,7 @@ internal static class ModelSelection
                 if (rho < 0)
                 {
                     var variants = new List<RunModel>();
-                    if (e.Element == RunModelElement.Boundary)
-                    {
-                        var list = m.Events.ToList();
-                        list[i] = Resistive(m, i);
-                        variants.Add(m.WithEvents(list));
-                    }
+                    if (e.Element == RunModelElement.Boundary) variants.Add(m.WithEvents(WithResistor(m.Events, m, i)));
                     if (rho > -0.6 && rho < -0.1)
                     {
                         // A tap: the drop and a later upward echo (the open branch end seen through the junction, which the
@@ -357,12 +349,7 @@ internal static class ModelSelection
                     }
                     if (variants.Count > 0 && TryBest(variants, simpler: true, i)) continue;
                 }
-                else if (e.Element == RunModelElement.Boundary)
-                {
-                    var list = m.Events.ToList();
-                    list[i] = Resistive(m, i);
-                    TryAccept(m.WithEvents(list), simpler: true, i);
-                }
+                else if (e.Element == RunModelElement.Boundary) TryAccept(m.WithEvents(WithResistor(m.Events, m, i)), simpler: true, i);
             }
         }
 
@@ -581,6 +568,20 @@ internal static class ModelSelection
         return e.Value < zPrev
             ? e with { Element = RunModelElement.ShuntResistor, Value = zPrev * e.Value / Math.Max(zPrev - e.Value, 1e-9) }
             : e with { Element = RunModelElement.SeriesResistor, Value = Math.Max(e.Value - zPrev, 1e-6) };
+    }
+
+    /// <summary>
+    /// <paramref name="events"/> with boundary <paramref name="index"/> of <paramref name="m"/> as its resistor (see
+    /// <see cref="Resistive"/>). Behind a resistor the line is Z_prev again rather than the boundary's Z, so every later
+    /// boundary's impedance is scaled by Z_prev/Z: each keeps its reflection coefficient, and the trial starts from the
+    /// same later trace instead of from a run whose every later step has changed.
+    /// </summary>
+    private static List<RunModelEvent> WithResistor(IReadOnlyList<RunModelEvent> events, RunModel m, int index)
+    {
+        double scale = RunModelBuilder.ImpedanceBefore(m, index) / m.Events[index].Value;
+        var list = events.Select((e, k) => k > index && e.Element == RunModelElement.Boundary ? e with { Value = e.Value * scale } : e).ToList();
+        list[index] = Resistive(m, index);
+        return list;
     }
 
     /// <summary>Event <paramref name="index"/> as two of its kind ±<paramref name="halfGapSeconds"/> around it, sharing its size.</summary>
