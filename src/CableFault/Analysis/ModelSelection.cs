@@ -83,6 +83,8 @@ internal static class ModelSelection
         var tried = new HashSet<string> { Key(initial) };
         // A further condition on a trial's fitted model (set by a move for its own trials only).
         Func<RunModel, bool>? acceptIf = null;
+        // The last trial given up after its first iterations: its fit, criterion and free parameters (see TryBest).
+        (ModelFit Fit, double Bic, bool[] Free)? lastProbe = null;
 
         var best = ModelFitter.Fit(initial, data, variance, maximumIterations: FirstFitProbeIterations, cancellation: cancellation);
         double bestBic = Bic(best);
@@ -118,8 +120,10 @@ internal static class ModelSelection
             bool accept = (simpler ? bic < bestBic + EvidenceMargin : bic < bestBic - EvidenceMargin) && (acceptIf?.Invoke(fit.Model) ?? true);
             DebugTrace?.Invoke($"trial {key}: bic {bic:0.0} vs best {bestBic:0.0} conv {fit.Converged} it {fit.Iterations} -> {accept}");
             if (accept) { best = fit; bestBic = bic; }
+            else if (!fit.Converged && fit.Iterations <= TrialFirstIterations) lastProbe = (fit, bic, free);
             return accept;
         }
+
 
         // A detector's many candidates are often one end and its echoes: the first fit of them all is the costliest of
         // the selection, and an end trial then removes most of them. So the first fit stops early; if an end already
@@ -146,12 +150,25 @@ internal static class ModelSelection
             var saved = (best, bestBic);
             ModelFit? winner = null;
             double winnerBic = double.PositiveInfinity;
+            (ModelFit Fit, double Bic, bool[] Free)? leading = null;
             foreach (var c in candidates)
             {
                 (best, bestBic) = saved;
+                lastProbe = null;
                 if (TryAccept(c, simpler, focus) && bestBic < winnerBic) { winner = best; winnerBic = bestBic; }
+                if (lastProbe is { } p && (leading is null || p.Bic < leading.Value.Bic)) leading = p;
             }
             (best, bestBic) = winner is null ? saved : (winner, winnerBic);
+            // When the current model is itself far from the data, every alternative can look hopeless after a few
+            // iterations: the most promising of them gets the rest of its iterations before the move is given up.
+            if (winner is null && leading is { } lead)
+            {
+                var fit = ModelFitter.Fit(lead.Fit.Model, data, variance, lead.Free, TrialIterations - TrialFirstIterations, cancellation);
+                double bic = Bic(fit);
+                bool accept = (simpler ? bic < bestBic + EvidenceMargin : bic < bestBic - EvidenceMargin) && (acceptIf?.Invoke(fit.Model) ?? true);
+                DebugTrace?.Invoke($"resumed: bic {bic:0.0} vs best {bestBic:0.0} conv {fit.Converged} -> {accept}");
+                if (accept) { (best, bestBic) = (fit, bic); return true; }
+            }
             return winner is not null;
         }
 
