@@ -338,7 +338,12 @@ internal static class ModelSelection
                 if (rho < 0)
                 {
                     var variants = new List<RunModel>();
-                    if (e.Element == RunModelElement.Boundary) variants.Add(m.WithEvents(WithResistor(m.Events, m, i)));
+                    if (e.Element == RunModelElement.Boundary)
+                    {
+                        var resistive = WithResistor(m.Events, m, i);
+                        variants.Add(m.WithEvents(resistive));
+                        if (WithoutEchoes(resistive, i, effectiveRiseSeconds) is { } cleared) variants.Add(m.WithEvents(cleared));
+                    }
                     if (rho > -0.6 && rho < -0.1)
                     {
                         // A tap: the drop and a later upward echo (the open branch end seen through the junction, which the
@@ -366,7 +371,13 @@ internal static class ModelSelection
                     }
                     if (variants.Count > 0 && TryBest(variants, simpler: true, i)) continue;
                 }
-                else if (e.Element == RunModelElement.Boundary) TryAccept(m.WithEvents(WithResistor(m.Events, m, i)), simpler: true, i);
+                else if (e.Element == RunModelElement.Boundary)
+                {
+                    var resistive = WithResistor(m.Events, m, i);
+                    var variants = new List<RunModel> { m.WithEvents(resistive) };
+                    if (WithoutEchoes(resistive, i, effectiveRiseSeconds) is { } cleared) variants.Add(m.WithEvents(cleared));
+                    TryBest(variants, simpler: true, i);
+                }
             }
         }
 
@@ -599,6 +610,21 @@ internal static class ModelSelection
         var list = events.Select((e, k) => k > index && e.Element == RunModelElement.Boundary ? e with { Value = e.Value * scale } : e).ToList();
         list[index] = Resistive(m, index);
         return list;
+    }
+
+    /// <summary>
+    /// <paramref name="events"/> without the events at the double bounce between event <paramref name="index"/> and a
+    /// later one j (at t_j + (t_j − t_index), within 0.75 of an effective rise), or null when there are none. A boundary
+    /// and the resistor that reflects alike from the front reflect with opposite signs from behind, so a fit that took a
+    /// resistor for a boundary will have put a stand-in event at that echo; it goes with the resistive hypothesis.
+    /// </summary>
+    private static List<RunModelEvent>? WithoutEchoes(List<RunModelEvent> events, int index, double effectiveRiseSeconds)
+    {
+        double ti = events[index].RoundTripSeconds;
+        bool IsEcho(int k) => Enumerable.Range(index + 1, Math.Max(0, k - index - 1))
+            .Any(j => Math.Abs(events[k].RoundTripSeconds - (2 * events[j].RoundTripSeconds - ti)) < 0.75 * effectiveRiseSeconds);
+        var kept = events.Where((_, k) => k <= index || !IsEcho(k)).ToList();
+        return kept.Count < events.Count ? kept : null;
     }
 
     /// <summary>Event <paramref name="index"/> as two of its kind ±<paramref name="halfGapSeconds"/> around it, sharing its size.</summary>
