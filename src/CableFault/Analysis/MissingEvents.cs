@@ -82,13 +82,8 @@ internal static class MissingEvents
         double rho = Math.Clamp(level / plateau, -MaximumStartingReflection, MaximumStartingReflection);
         var boundary = new RunModelEvent(RunModelElement.Boundary, time, zBefore * (1 + rho) / (1 - rho));
         result.Add(m.WithEvents(m.Events.Append(boundary)));
-        // A transient: τ ≈ t_r·|p|/(1 − |p|), C = 2τ/Z, L = 2Zτ (see RunModelBuilder.FromCandidates).
-        double p = Math.Min(Math.Abs(peak / plateau), 0.9);
-        double tau = Math.Max(effectiveRiseSeconds * p / (1 - p), effectiveRiseSeconds * 1e-3);
-        var spot = peak < 0
-            ? new RunModelEvent(RunModelElement.ShuntCapacitor, time, 2 * tau / zBefore)
-            : new RunModelEvent(RunModelElement.SeriesInductor, time, 2 * zBefore * tau);
-        result.Add(m.WithEvents(m.Events.Append(spot)));
+        // A transient, sized from its peak as the detector's candidates are.
+        result.Add(m.WithEvents(m.Events.Append(RunModelBuilder.SpotFromPeak(peak < 0, time, peak / plateau, effectiveRiseSeconds, zBefore))));
         return (result, index);
     }
 }

@@ -117,13 +117,16 @@ internal static class ModelSelection
                 fit = ModelFitter.Fit(fit.Model, data, variance, free, TrialIterations - TrialFirstIterations, cancellation);
                 bic = Bic(fit);
             }
-            bool accept = (simpler ? bic < bestBic + EvidenceMargin : bic < bestBic - EvidenceMargin) && (acceptIf?.Invoke(fit.Model) ?? true);
+            bool accept = Accepts(fit, bic, simpler);
             DebugTrace?.Invoke($"trial {key}: bic {bic:0.0} vs best {bestBic:0.0} conv {fit.Converged} it {fit.Iterations} -> {accept}");
             if (accept) { best = fit; bestBic = bic; }
             else if (!fit.Converged && fit.Iterations <= TrialFirstIterations) lastProbe = (fit, bic, free);
             return accept;
         }
 
+        // A simpler model may lose by the margin, a more complex one must win by it; a move may add its own condition.
+        bool Accepts(ModelFit fit, double bic, bool simpler) =>
+            (simpler ? bic < bestBic + EvidenceMargin : bic < bestBic - EvidenceMargin) && (acceptIf?.Invoke(fit.Model) ?? true);
 
         // A detector's many candidates are often one end and its echoes: the first fit of them all is the costliest of
         // the selection, and an end trial then removes most of them. So the first fit stops early; if an end already
@@ -165,7 +168,7 @@ internal static class ModelSelection
             {
                 var fit = ModelFitter.Fit(lead.Fit.Model, data, variance, lead.Free, TrialIterations - TrialFirstIterations, cancellation);
                 double bic = Bic(fit);
-                bool accept = (simpler ? bic < bestBic + EvidenceMargin : bic < bestBic - EvidenceMargin) && (acceptIf?.Invoke(fit.Model) ?? true);
+                bool accept = Accepts(fit, bic, simpler);
                 DebugTrace?.Invoke($"resumed: bic {bic:0.0} vs best {bestBic:0.0} conv {fit.Converged} -> {accept}");
                 if (accept) { (best, bestBic) = (fit, bic); return true; }
             }
@@ -284,12 +287,8 @@ internal static class ModelSelection
                 var m = best.Model;
                 // A narrow pair of boundaries that returns may be a spot (or, if capacitive, a tap) the fit bent into an
                 // extreme section; fewer parameters, so it need only not lose.
-                if (ReactiveSections.ToSpot(m, i, 2 * effectiveRiseSeconds) is RunModel spot)
-                {
-                    var spots = new List<RunModel> { spot };
-                    if (ReactiveSections.AsTap(spot, i, effectiveRiseSeconds) is RunModel tap) spots.Add(tap);
-                    if (TryBest(spots, simpler: true, i)) continue;
-                }
+                var spots = ReactiveSections.SpotCandidates(m, i, effectiveRiseSeconds);
+                if (spots.Count > 0 && TryBest(spots, simpler: true, i)) continue;
                 if (!ReactiveSections.IsReactive(m.Events[i].Element)) { i++; continue; }
                 int last = ReactiveSections.ClusterEnd(m, i, effectiveRiseSeconds);
                 double span = m.Events[last].RoundTripSeconds - m.Events[i].RoundTripSeconds;
@@ -312,10 +311,8 @@ internal static class ModelSelection
             {
                 var m = best.Model;
                 if (m.Events[i].Element != RunModelElement.Boundary || Math.Abs(LocalReflection(m, i)) < EventClassifier.EndReflection) continue;
-                if (ReactiveSections.ToSpot(m, i, 2 * effectiveRiseSeconds) is not RunModel spot) continue;
-                var spots = new List<RunModel> { spot };
-                if (ReactiveSections.AsTap(spot, i, effectiveRiseSeconds) is RunModel tap) spots.Add(tap);
-                TryBest(spots, simpler: true, i);
+                var spots = ReactiveSections.SpotCandidates(m, i, effectiveRiseSeconds);
+                if (spots.Count > 0) TryBest(spots, simpler: true, i);
             }
         }
 

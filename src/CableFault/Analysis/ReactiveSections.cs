@@ -51,7 +51,7 @@ internal static class ReactiveSections
         // Each spot delays what lies beyond it by its transmission's low-frequency group delay, Z·C/2 or L/(2Z) each way
         // (T = 1/(1 + jωτ)), so the fit placed the later events that much early; a section of the same cable adds no
         // delay, so they move that much later.
-        double delay = spots.Sum(e => 2 * (e.Element == RunModelElement.ShuntCapacitor ? z * e.Value / 2 : e.Value / (2 * z)));
+        double delay = spots.Sum(e => 2 * SpotDelaySeconds(e, z));
         var list = m.Events.Select((e, k) => k > last ? e with { RoundTripSeconds = e.RoundTripSeconds + delay } : e).ToList();
         list.RemoveRange(first, last - first + 1);
         list.InsertRange(first, [new RunModelEvent(RunModelElement.Boundary, t1, z1), new RunModelEvent(RunModelElement.Boundary, t2, z)]);
@@ -117,12 +117,32 @@ internal static class ReactiveSections
             ? new RunModelEvent(RunModelElement.SeriesInductor, (a.RoundTripSeconds + b.RoundTripSeconds) / 2, tau / 2 * (z1 - z * z / z1))
             : new RunModelEvent(RunModelElement.ShuntCapacitor, (a.RoundTripSeconds + b.RoundTripSeconds) / 2, tau / 2 * (1 / z1 - z1 / (z * z)));
         if (!(spot.Value > 0) || !double.IsFinite(spot.Value)) return null;
-        double delay = 2 * (spot.Element == RunModelElement.ShuntCapacitor ? z * spot.Value / 2 : spot.Value / (2 * z));
+        double delay = 2 * SpotDelaySeconds(spot, z);
         var list = m.Events.Select((e, k) => k > first + 1 ? e with { RoundTripSeconds = e.RoundTripSeconds - delay } : e).ToList();
         list.RemoveRange(first, 2);
         list.Insert(first, spot);
         // The line after the pair keeps the impedance the second boundary set only if it differs from Z; a spot returns
         // to Z exactly, so a later boundary's impedance is unchanged and the small difference is left to the fit.
         return m.WithEvents(list);
+    }
+
+    /// <summary>
+    /// The one-way delay a shunt C or series L on a line of <paramref name="z"/> Ω adds to what passes it, s: the
+    /// low-frequency group delay of its transmission T = 1/(1 + jωτ), τ = Z·C/2 or L/(2Z).
+    /// </summary>
+    internal static double SpotDelaySeconds(RunModelEvent spot, double z) =>
+        spot.Element == RunModelElement.ShuntCapacitor ? z * spot.Value / 2 : spot.Value / (2 * z);
+
+    /// <summary>
+    /// What a narrow pair of boundaries at <paramref name="first"/> may stand for (see <see cref="ToSpot"/>, at most two
+    /// effective rises wide): the spot, and, for a capacitive one, the tap of the same admittance (see
+    /// <see cref="AsTap"/>). Empty when the pair does not qualify.
+    /// </summary>
+    internal static List<RunModel> SpotCandidates(RunModel m, int first, double effectiveRiseSeconds)
+    {
+        if (ToSpot(m, first, 2 * effectiveRiseSeconds) is not RunModel spot) return [];
+        var candidates = new List<RunModel> { spot };
+        if (AsTap(spot, first, effectiveRiseSeconds) is RunModel tap) candidates.Add(tap);
+        return candidates;
     }
 }

@@ -101,10 +101,7 @@ internal static class ResolutionRefinement
             var m = best.Model;
             if (m.Events[k].Element != RunModelElement.Boundary
                 || Math.Abs(ModelSelection.LocalReflection(m, k)) < EventClassifier.EndReflection) continue;
-            if (ReactiveSections.ToSpot(m, k, 2 * fineRiseSeconds) is not RunModel spot) continue;
-            var candidates = new List<RunModel> { spot };
-            if (ReactiveSections.AsTap(spot, k, fineRiseSeconds) is RunModel tap) candidates.Add(tap);
-            foreach (var candidate in candidates)
+            foreach (var candidate in ReactiveSections.SpotCandidates(m, k, fineRiseSeconds))
             {
                 var fit = ModelFitter.Fit(candidate, fine, variance, FreeAround(candidate, k - 1, k + 1), Iterations, cancellation);
                 trials++;

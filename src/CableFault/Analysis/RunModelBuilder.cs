@@ -36,15 +36,25 @@ internal static class RunModelBuilder
                     break;
                 case CandidateShape.Dip:
                 case CandidateShape.Bump:
-                    double p = Math.Min(Math.Abs(rho), 0.9);
-                    double tau = Math.Max(riseSeconds * p / (1 - p), riseSeconds * 1e-3);
-                    bool dip = c.Shape == CandidateShape.Dip;
-                    events.Add(new RunModelEvent(dip ? RunModelElement.ShuntCapacitor : RunModelElement.SeriesInductor,
-                        c.RoundTripSeconds, dip ? 2 * tau / z : 2 * z * tau));
+                    events.Add(SpotFromPeak(c.Shape == CandidateShape.Dip, c.RoundTripSeconds, rho, riseSeconds, z));
                     break;
             }
         }
         return new RunModel(context, amplitudeVolts, 0, riseSeconds, events);
+    }
+
+    /// <summary>
+    /// A shunt C (dip) or series L (bump) at <paramref name="timeSeconds"/> on a line of <paramref name="z"/> Ω whose
+    /// excursion peaks at <paramref name="peakFraction"/> of the incident step: τ ≈ t_r·|p|/(1 − |p|) (|p| capped at 0.9),
+    /// C = 2τ/Z, L = 2Zτ (see <see cref="FromCandidates"/>).
+    /// </summary>
+    internal static RunModelEvent SpotFromPeak(bool dip, double timeSeconds, double peakFraction, double riseSeconds, double z)
+    {
+        double p = Math.Min(Math.Abs(peakFraction), 0.9);
+        double tau = Math.Max(riseSeconds * p / (1 - p), riseSeconds * 1e-3);
+        return dip
+            ? new RunModelEvent(RunModelElement.ShuntCapacitor, timeSeconds, 2 * tau / z)
+            : new RunModelEvent(RunModelElement.SeriesInductor, timeSeconds, 2 * z * tau);
     }
 
     /// <summary>Line impedance just before event <paramref name="index"/>, Ω.</summary>
