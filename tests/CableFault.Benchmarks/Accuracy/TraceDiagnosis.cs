@@ -1,4 +1,5 @@
 using System.Globalization;
+using CableFault;
 using CableFault.Analysis;
 using CableFault.Traces;
 
@@ -17,13 +18,24 @@ public static class TraceDiagnosis
             Console.Error.WriteLine("diagnose: use diagnose FILE VF Z0");
             return 2;
         }
-        Trace trace;
-        using (var stream = File.OpenRead(args[0])) trace = TraceCsvReader.Read(stream, args[0]);
-        var options = new LocateOptions
+        if (!double.TryParse(args[1], NumberStyles.Float, CultureInfo.InvariantCulture, out double vf)
+            || !double.TryParse(args[2], NumberStyles.Float, CultureInfo.InvariantCulture, out double z0))
         {
-            VelocityFactor = double.Parse(args[1], CultureInfo.InvariantCulture),
-            ImpedanceOhms = double.Parse(args[2], CultureInfo.InvariantCulture),
-        };
+            Console.Error.WriteLine($"diagnose: VF '{args[1]}' and Z0 '{args[2]}' must be numbers, e.g. diagnose trace.csv 0.66 50");
+            return 2;
+        }
+        Trace trace;
+        try
+        {
+            using var stream = File.OpenRead(args[0]);
+            trace = TraceCsvReader.Read(stream, args[0]);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or InputException)
+        {
+            Console.Error.WriteLine($"diagnose: {e.Message}");
+            return 2;
+        }
+        var options = new LocateOptions { VelocityFactor = vf, ImpedanceOhms = z0 };
         ModelSelection.DebugTrace = m => Console.WriteLine("    " + m);
         long before = RunModel.SimulationCount;
         var watch = System.Diagnostics.Stopwatch.StartNew();
