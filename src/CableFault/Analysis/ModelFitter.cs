@@ -5,7 +5,8 @@ namespace CableFault.Analysis;
 
 /// <summary>
 /// Least-squares fit of a <see cref="RunModel"/> to <see cref="FitData"/> by Levenberg–Marquardt
-/// (MathNet.Numerics.Optimization), with a forward-difference Jacobian whose columns are computed in parallel.
+/// (MathNet.Numerics.Optimization) on a <see cref="ColumnObjective"/>, with a forward-difference Jacobian whose columns are
+/// computed in parallel.
 /// </summary>
 internal static class ModelFitter
 {
@@ -30,8 +31,6 @@ internal static class ModelFitter
         double[] u0 = initial.ToVector();
         int p = u0.Length;
         free ??= Enumerable.Repeat(true, p).ToArray();
-        var y = Vector<double>.Build.DenseOfArray(data.Samples);
-        var x = Vector<double>.Build.Dense(y.Count, i => i);
         double weight = 1 / Math.Max(sampleVarianceVolts2, 1e-300);
 
         // Jacobian in the dimensionless parameters u: forward differences (columns in parallel) at the start and every
@@ -97,23 +96,13 @@ internal static class ModelFitter
             foreach (double v in j0[j]) norm += v * v;
             scale[j] = norm > 0 ? Math.Sqrt(norm * weight) : 1;
         }
-        double[] ToU(Vector<double> q)
+        double[] ToU(double[] q)
         {
             var u = new double[p];
             for (int j = 0; j < p; j++) u[j] = u0[j] + q[j] / scale[j];
             return u;
         }
-        Matrix<double> JacobianQ(Vector<double> q)
-        {
-            var columns = JacobianU(ToU(q));
-            return Matrix<double>.Build.Dense(y.Count, p, (i, j) => columns[j][i] / scale[j]);
-        }
-
-        var weights = Vector<double>.Build.Dense(y.Count, weight);
-        var objective = ObjectiveFunction.NonlinearModel(
-            (q, _) => Vector<double>.Build.DenseOfArray(Model(ToU(q))),
-            (q, _) => JacobianQ(q),
-            x, y, weights);
+        var objective = new ColumnObjective(data.Samples, weight, q => Model(ToU(q)), q => JacobianU(ToU(q)), scale);
         // The objective is χ²/2 in noise units: stop when its gradient is below 10⁻³ per noise-unit of parameter (what is
         // left to gain is far below one unit of χ²), or when LM can no longer find a step that lowers χ² (its damping then shrinks the step to nothing).
         var minimizer = new LevenbergMarquardtMinimizer(initialMu: 1e-3, gradientTolerance: 1e-3, stepTolerance: 1e-15,
@@ -143,7 +132,7 @@ internal static class ModelFitter
             start = result.MinimizingPoint;
             secant.ForceExact();
         }
-        var uBest = result is null ? u0 : ToU(result.MinimizingPoint);
+        var uBest = result is null ? u0 : ToU(result.MinimizingPoint.ToArray());
         var model = initial.FromVector(uBest);
         var fitted = Model(uBest);
         double rss = 0;
