@@ -88,16 +88,26 @@ internal static class ModelSelection
 
         var best = ModelFitter.Fit(initial, data, variance, maximumIterations: FirstFitProbeIterations, cancellation: cancellation);
         double bestBic = Bic(best);
+        DebugTrace?.Invoke($"start {Describe(initial)}");
+        DebugTrace?.Invoke($"first fit: bic {bestBic:0.0} {Describe(best.Model)}");
 
         // A trial frees the events it changed, the one before, and every event after: a change alters what reaches the
         // later events and the levels and echoes they set, while the earlier part of the run is already fitted and
         // barely moves. The incident edge (amplitude, offset, rise) is free too: a wrong model bends it.
         bool TryAccept(RunModel candidate, bool simpler, params int[] focus)
         {
-            // The same kinds at the same places (to within an effective rise) are one hypothesis: fitting it twice from
-            // nearby starts gains nothing.
+            if (Admit(candidate, focus) is not { } trial) return false;
+            var (fit, bic) = RunTrial(trial, bestBic);
+            return Conclude(trial, fit, bic, simpler);
+        }
+
+        // A new hypothesis and the parameters its trial frees, or null when it was tried before: the same kinds at the
+        // same places (to within an effective rise) are one hypothesis, and fitting it twice from nearby starts gains
+        // nothing.
+        Trial? Admit(RunModel candidate, int[] focus)
+        {
             string key = Key(candidate);
-            if (!tried.Add(key)) { DebugTrace?.Invoke($"skip (tried) {key}"); return false; }
+            if (!tried.Add(key)) { DebugTrace?.Invoke($"skip (tried) {key}"); return null; }
             trials++;
             var free = new bool[candidate.ParameterCount];
             for (int g = 0; g < RunModel.GlobalParameterCount; g++) free[g] = true;
@@ -108,19 +118,33 @@ internal static class ModelSelection
                 free[k] = true;
                 if (candidate.Events[i].HasValue) free[k + 1] = true;
             }
-            var fit = ModelFitter.Fit(candidate, data, variance, free, TrialFirstIterations, cancellation);
+            return new Trial(candidate, key, free);
+        }
+
+        // The trial's fit and criterion, judged against criterion `against`; touches no state of the selection, so the
+        // candidates of one move can be fitted side by side.
+        (ModelFit Fit, double Bic) RunTrial(Trial trial, double against)
+        {
+            var fit = ModelFitter.Fit(trial.Candidate, data, variance, trial.Free, TrialFirstIterations, cancellation);
             double bic = Bic(fit);
             // A right hypothesis falls close to the current criterion within a few iterations; a wrong one stays far
             // above it. Only the promising get the rest of the iterations.
-            if (!fit.Converged && bic < bestBic + Math.Max(PromisingMargin, 0.1 * Math.Abs(bestBic)))
+            if (!fit.Converged && bic < against + Math.Max(PromisingMargin, 0.1 * Math.Abs(against)))
             {
-                fit = ModelFitter.Fit(fit.Model, data, variance, free, TrialIterations - TrialFirstIterations, cancellation);
+                fit = ModelFitter.Fit(fit.Model, data, variance, trial.Free, TrialIterations - TrialFirstIterations, cancellation);
                 bic = Bic(fit);
             }
+            return (fit, bic);
+        }
+
+        // Accepts the trial's fit as the current model when it beats it; keeps it as the last probe when it was given up
+        // after its first iterations.
+        bool Conclude(Trial trial, ModelFit fit, double bic, bool simpler)
+        {
             bool accept = Accepts(fit, bic, simpler);
-            DebugTrace?.Invoke($"trial {key}: bic {bic:0.0} vs best {bestBic:0.0} conv {fit.Converged} it {fit.Iterations} -> {accept}");
+            DebugTrace?.Invoke($"trial {trial.Key}: bic {bic:0.0} vs best {bestBic:0.0} conv {fit.Converged} it {fit.Iterations} -> {accept}");
             if (accept) { best = fit; bestBic = bic; }
-            else if (!fit.Converged && fit.Iterations <= TrialFirstIterations) lastProbe = (fit, bic, free);
+            else if (!fit.Converged && fit.Iterations <= TrialFirstIterations) lastProbe = (fit, bic, trial.Free);
             return accept;
         }
 
@@ -147,18 +171,22 @@ internal static class ModelSelection
         TryEnds();
         Prune();
 
-        // Fits several candidates and accepts the best if it beats the current model.
+        // Fits several candidates (side by side: each is judged against the current model alone) and accepts the best
+        // if it beats the current model.
         bool TryBest(IReadOnlyList<RunModel> candidates, bool simpler, params int[] focus)
         {
             var saved = (best, bestBic);
+            var admitted = candidates.Select(c => Admit(c, focus)).OfType<Trial>().ToList();
+            var results = new (ModelFit Fit, double Bic)[admitted.Count];
+            ForEachInParallel(admitted.Count, k => results[k] = RunTrial(admitted[k], saved.bestBic), cancellation);
             ModelFit? winner = null;
             double winnerBic = double.PositiveInfinity;
             (ModelFit Fit, double Bic, bool[] Free)? leading = null;
-            foreach (var c in candidates)
+            for (int k = 0; k < admitted.Count; k++)
             {
                 (best, bestBic) = saved;
                 lastProbe = null;
-                if (TryAccept(c, simpler, focus) && bestBic < winnerBic) { winner = best; winnerBic = bestBic; }
+                if (Conclude(admitted[k], results[k].Fit, results[k].Bic, simpler) && bestBic < winnerBic) { winner = best; winnerBic = bestBic; }
                 if (lastProbe is { } p && (leading is null || p.Bic < leading.Value.Bic)) leading = p;
             }
             (best, bestBic) = winner is null ? saved : (winner, winnerBic);
@@ -201,6 +229,7 @@ internal static class ModelSelection
         for (int round = 0; round < MaximumInsertionRounds; round++)
         {
             var (proposals, at) = MissingEvents.Propose(best, data, variance, effectiveRiseSeconds, 2 * logN + EvidenceMargin);
+            DebugTrace?.Invoke($"insertion round {round}: {proposals.Count} proposal(s) at index {at}");
             if (proposals.Count == 0 || !TryBest(proposals, simpler: false, at)) break;
             splits++;
         }
@@ -423,6 +452,7 @@ internal static class ModelSelection
                     .DefaultIfEmpty(-1).MinBy(k => k < 0 ? 0 : Math.Abs(ev[k].PeakSignatureVolts));
                 if (faint >= 0)
                 {
+                    DebugTrace?.Invoke($"faint: {Describe(best.Model)} loses event {faint} (peak signature {ev[faint].PeakSignatureVolts:G3} V)");
                     var reduced = best.Model.Events.Where((_, k) => k != faint);
                     var refit = ModelFitter.Fit(best.Model.WithEvents(reduced), data, variance, cancellation: cancellation);
                     trials++;
@@ -436,6 +466,32 @@ internal static class ModelSelection
                 list.RemoveAt(weakest);
                 if (!TryAccept(best.Model.WithEvents(list), simpler: true, weakest - 1, weakest)) break;
             }
+        }
+    }
+
+    /// <summary>Each event as kind@round trip (ns)=value, for <see cref="DebugTrace"/>.</summary>
+    private static string Describe(RunModel m) => string.Join(", ", m.Events.Select(e =>
+        string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{e.Element}@{e.RoundTripSeconds * 1e9:0.0}={e.Value:G3}")));
+
+    /// <summary>A hypothesis admitted for a trial fit: the model, its key and the parameters the trial frees.</summary>
+    private sealed record Trial(RunModel Candidate, string Key, bool[] Free);
+
+    /// <summary>Runs <paramref name="body"/> for 0 … count − 1 on the thread pool; the first failure is rethrown as it was
+    /// thrown (a cancellation stays an <see cref="OperationCanceledException"/>).</summary>
+    private static void ForEachInParallel(int count, Action<int> body, CancellationToken cancellation)
+    {
+        if (count <= 1)
+        {
+            if (count == 1) body(0);
+            return;
+        }
+        try
+        {
+            Parallel.For(0, count, new ParallelOptions { CancellationToken = cancellation }, body);
+        }
+        catch (AggregateException e)
+        {
+            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e.InnerExceptions[0]).Throw();
         }
     }
 
