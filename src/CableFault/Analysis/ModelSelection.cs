@@ -173,9 +173,12 @@ internal static class ModelSelection
 
         // Fits several candidates (side by side: each is judged against the current model alone) and accepts the best
         // if it beats the current model.
-        bool TryBest(IReadOnlyList<RunModel> candidates, bool simpler, params int[] focus)
+        // simpler: whether the candidates need only not lose by the margin (true) or must win by it (false); null decides
+        // per candidate by its parameter count against the current model's.
+        bool TryBest(IReadOnlyList<RunModel> candidates, bool? simpler, params int[] focus)
         {
             var saved = (best, bestBic);
+            bool IsSimpler(RunModel candidate) => simpler ?? candidate.ParameterCount < saved.best.Model.ParameterCount;
             var admitted = candidates.Select(c => Admit(c, focus)).OfType<Trial>().ToList();
             var results = new (ModelFit Fit, double Bic)[admitted.Count];
             ForEachInParallel(admitted.Count, k => results[k] = RunTrial(admitted[k], saved.bestBic), cancellation);
@@ -186,7 +189,7 @@ internal static class ModelSelection
             {
                 (best, bestBic) = saved;
                 lastProbe = null;
-                if (Conclude(admitted[k], results[k].Fit, results[k].Bic, simpler) && bestBic < winnerBic) { winner = best; winnerBic = bestBic; }
+                if (Conclude(admitted[k], results[k].Fit, results[k].Bic, IsSimpler(admitted[k].Candidate)) && bestBic < winnerBic) { winner = best; winnerBic = bestBic; }
                 if (lastProbe is { } p && (leading is null || p.Bic < leading.Value.Bic)) leading = p;
             }
             (best, bestBic) = winner is null ? saved : (winner, winnerBic);
@@ -196,7 +199,7 @@ internal static class ModelSelection
             {
                 var fit = ModelFitter.Fit(lead.Fit.Model, data, variance, lead.Free, TrialIterations - TrialFirstIterations, cancellation);
                 double bic = Bic(fit);
-                bool accept = Accepts(fit, bic, simpler);
+                bool accept = Accepts(fit, bic, IsSimpler(fit.Model));
                 DebugTrace?.Invoke($"resumed: bic {bic:0.0} vs best {bestBic:0.0} conv {fit.Converged} -> {accept}");
                 if (accept) { (best, bestBic) = (fit, bic); return true; }
             }
@@ -395,14 +398,14 @@ internal static class ModelSelection
                         // picks a start from the data.
                         if (TapScan(m, i, data, effectiveRiseSeconds) is RunModel scanned) variants.Add(scanned);
                     }
-                    if (variants.Count > 0 && TryBest(variants, simpler: true, i)) continue;
+                    if (variants.Count > 0 && TryBest(variants, simpler: null, i)) continue;
                 }
                 else if (e.Element == RunModelElement.Boundary)
                 {
                     var resistive = WithResistor(m.Events, m, i);
                     var variants = new List<RunModel> { m.WithEvents(resistive) };
                     if (WithoutEchoes(resistive, i, effectiveRiseSeconds) is { } cleared) variants.Add(m.WithEvents(cleared));
-                    TryBest(variants, simpler: true, i);
+                    TryBest(variants, simpler: null, i);
                 }
             }
         }

@@ -30,6 +30,30 @@ public class ResolutionAndHonestyTests
         Assert.All(pair, e => Assert.Equal(EventKind.ImpedanceRise, e.Kind));
     }
 
+    [Theory]
+    [InlineData(+1)]
+    [InlineData(-1)]
+    public void TwoCloseStepsIntoAMatchedLineAreNamedStepsNotResistors(int sign)
+    {
+        // A staircase of two equal steps, ρ = ±1/11 each (Pozar, 4th ed., eq. 2.35), half of v·t_r/2 apart, into a line
+        // that runs on matched. A series (or shunt) resistor just before the second step loads the port the same way to
+        // within the rise, so the trace cannot ask for a resistor: with no evidence either way, no fault is named.
+        double v = VelocityFactor * PhysicalConstants.SpeedOfLightMetersPerSecond;
+        double separation = 0.5 * v * RiseSeconds / 2;
+        double step = sign > 0 ? 12.0 / 10 : 10.0 / 12;
+        double z1 = 50 * step, z2 = z1 * step;
+        double noise = (1.0 / 11) / 100;
+        var network = Run(Segment(6), Segment(separation, z1), Segment(8, z2), RunEnd.Matched);
+        var result = Locator.Locate(Simulate(network, noise, seed: 5), Options());
+        string found = string.Join("; ", result.Events.Select(e => $"{e.Kind} {e.DistanceMeters:0.####} m"));
+        var expected = sign > 0 ? EventKind.ImpedanceRise : EventKind.ImpedanceDrop;
+        Assert.True(result.Events.Count is 1 or 2, $"expected the staircase alone near 6 m, found: {found}");
+        Assert.All(result.Events, e => Assert.InRange(e.DistanceMeters, 6 - separation, 6 + 2 * separation));
+        // The first is a step; the last may also be read as the resistive end of Z₂ it is equivalent to.
+        Assert.True(result.Events[0].Kind == expected, $"first event should be {expected}; found: {found}");
+        Assert.True(result.Events[^1].Kind == expected || result.Events[^1].Kind == EventKind.Termination, $"found: {found}");
+    }
+
     [Fact]
     public void MatchedLineHasNoEvents()
     {
