@@ -37,7 +37,8 @@ internal static class EventClassifier
     /// <param name="IncidentLevelVolts">Height of the incident plateau at the port, V.</param>
     /// <param name="NoiseRmsVolts">Noise RMS of an analysed sample, V.</param>
     /// <param name="DeltaBic">BIC earned by the event.</param>
-    /// <param name="IsLastOnMainLine">True when no other event lies after it on the main line.</param>
+    /// <param name="IsLastOnMainLine">True when no other event whose kind can be named (see <see cref="IsWeak"/>) lies after
+    /// it on the main line.</param>
     /// <param name="RecordAfterSeconds">Record length after the event, s.</param>
     /// <param name="RiseSeconds">Effective rise time, s.</param>
     /// <param name="LocalMisfitRatio">Local residual of the fit around the event over the noise RMS (about 1 where the
@@ -58,8 +59,7 @@ internal static class EventClassifier
         // section) stays certain.
         double snrOverMisfit = snr / Math.Max(1, e.LocalMisfitRatio);
         double confidence = pReal * (1 - Math.Exp(-snrOverMisfit / ConfidenceSignalToNoiseScale));
-        bool sizeKnown = e.Element is RunModelElement.Open or RunModelElement.Short || e.LogSizeSigma <= MaximumLogSizeSigma;
-        bool weak = snr < MinimumKindSignalToNoise || !sizeKnown;
+        bool weak = IsWeak(e.Element, e.LogSizeSigma, e.PeakSignatureVolts, e.NoiseRmsVolts);
 
         (EventKind kind, double rho, double? impedance, double? value) = e.Element switch
         {
@@ -85,6 +85,15 @@ internal static class EventClassifier
         };
         if (weak && kind is not (EventKind.Open or EventKind.Short)) kind = EventKind.Unknown;
         return (kind, rho, impedance, value, Math.Clamp(confidence, 0, 1));
+    }
+
+    /// <summary>True when the event is too faint, or its size too loosely known, for its kind to be named (it is then
+    /// <see cref="EventKind.Unknown"/>, unless it is an open or a short).</summary>
+    internal static bool IsWeak(RunModelElement element, double logSizeSigma, double peakSignatureVolts, double noiseRmsVolts)
+    {
+        double snr = Math.Abs(peakSignatureVolts) / Math.Max(noiseRmsVolts, 1e-300);
+        bool sizeKnown = element is RunModelElement.Open or RunModelElement.Short || logSizeSigma <= MaximumLogSizeSigma;
+        return snr < MinimumKindSignalToNoise || !sizeKnown;
     }
 
     /// <summary>True when nothing follows the event on the main line and the record runs on for at least

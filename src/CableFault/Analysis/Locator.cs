@@ -123,14 +123,20 @@ public static class Locator
         double incidentLevel = 2 * model.AmplitudeVolts * z0 / (zs + z0);
         double recordEnd = aligned.EndTimeSeconds - model.TimeOffsetSeconds;
 
+        double SigmaLog(int i) => model.Events[i].HasValue
+            ? Math.Sqrt(Math.Max(0, covariance[model.TimeParameterIndex(i) + 1, model.TimeParameterIndex(i) + 1])) : 0;
+        // A faint or loosely sized event after a resistor or step (what a slightly wrong loss model leaves beyond the
+        // end) does not make the run go on: the run still ends in that resistance.
+        var weak = Enumerable.Range(0, model.Events.Count).Select(i => EventClassifier.IsWeak(model.Events[i].Element, SigmaLog(i),
+            selection.Events[i].PeakSignatureVolts, Math.Sqrt(selection.VarianceVolts2))).ToArray();
         var located = new List<LocatedEvent>();
         for (int i = 0; i < model.Events.Count; i++)
         {
             var e = model.Events[i];
             int tIndex = model.TimeParameterIndex(i);
             double sigmaT = Math.Sqrt(Math.Max(0, covariance[tIndex, tIndex])) * context.ReferenceRiseSeconds;
-            double sigmaLog = e.HasValue ? Math.Sqrt(Math.Max(0, covariance[tIndex + 1, tIndex + 1])) : 0;
-            bool lastOnMain = i == model.Events.Count - 1;
+            double sigmaLog = SigmaLog(i);
+            bool lastOnMain = weak.Skip(i + 1).All(w => w);
             double misfit = ModelSelection.LocalResidualRatio(fit, data, selection.VarianceVolts2,
                 model.TimeOffsetSeconds + e.RoundTripSeconds, riseEffective);
             var (kind, rho, impedance, value, confidence) = EventClassifier.Classify(new EventClassifier.Input(
