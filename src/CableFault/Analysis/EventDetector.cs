@@ -174,7 +174,9 @@ public static class EventDetector
         if (peak <= first || peak >= last) return peak;
         double a = Math.Abs(d[peak - 1]), b = Math.Abs(d[peak]), c = Math.Abs(d[peak + 1]);
         double denominator = a - 2 * b + c;
-        return denominator < 0 ? peak + 0.5 * (a - c) / denominator : peak;
+        // The vertex of the parabola through the three points; a neighbour past a change of sign can be larger than the
+        // peak in magnitude, and the vertex then flies off: it is kept within half a layer of the peak sample.
+        return denominator < 0 ? peak + Math.Clamp(0.5 * (a - c) / denominator, -0.5, 0.5) : peak;
     }
 
     private static double TimeAt(ImpedanceProfile profile, double index)

@@ -36,6 +36,13 @@ public static class TraceDiagnosis
             return 2;
         }
         var options = new LocateOptions { VelocityFactor = vf, ImpedanceOhms = z0 };
+        // The detector's candidates, the selection's starting point.
+        var characteristics = TraceConditioner.Characterise(trace);
+        var aligned = TraceConditioner.Align(trace, characteristics);
+        var profile = LayerPeeling.Profile(aligned, characteristics, z0, vf, options.Loss, options.SourceImpedanceOhms);
+        foreach (var c in EventDetector.Detect(aligned, characteristics, profile))
+            Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
+                $"  candidate {c.RoundTripSeconds * 1e9,9:0.00} ns  {c.Shape,-5} Δρ {c.ReflectionStep:+0.0000;-0.0000}  SNR {c.SignalToNoise:0.0}  Z after {c.ImpedanceAfterOhms:0.0}"));
         ModelSelection.DebugTrace = m => Console.WriteLine("    " + m);
         long before = RunModel.SimulationCount;
         var watch = System.Diagnostics.Stopwatch.StartNew();

@@ -50,6 +50,27 @@ public class EventDetectorTests
     }
 
     [Fact]
+    public void CandidatesStayWhereTheProfileChangesBesideAnInductiveSpotAtASectionStart()
+    {
+        // 8 pF at 20 m; 25 nH in series at 35 m, where 3 m of 75 Ω begin; 500 Ω across the line at 38 m; open at 198 m.
+        // A long record (32 768 samples, 4 µs) is peeled in blocks, and the spot's bump and the section's rise fall in
+        // neighbouring layers, where the box difference changes sign next to its peak. Every candidate must lie at one of
+        // the built places (20, 35, 38 or 198 m), not between them.
+        var line = Line(50);
+        var network = Run(new CableSegment(20, line), new ShuntCapacitor(8e-12), new CableSegment(15, line),
+            new SeriesInductor(25e-9), new CableSegment(3, Line(75)), new ShuntResistor(500), new CableSegment(160, line), RunEnd.Open);
+        var raw = CableFault.Simulation.ForwardModel.Simulate(network, Settings(network, 1e-3, 7) with
+        {
+            SampleIntervalSeconds = 125e-12, SampleCount = 32768, PreTriggerSeconds = 5e-9,
+        });
+        var found = Detect(raw);
+        double[] built = [20, 35, 38, 198];
+        Assert.NotEmpty(found);
+        Assert.All(found, e => Assert.True(built.Any(b => Math.Abs(Meters(e) - b) < 0.5),
+            $"candidate at {Meters(e):0.###} m; all: {string.Join(", ", found.Select(f => $"{Meters(f):0.###} m"))}"));
+    }
+
+    [Fact]
     public void GhostBetweenTwoStrongBoundariesIsNotReported()
     {
         // 50 Ω, then 5 m of 100 Ω (k = ±1/3 at 10 m and 15 m), then 50 Ω into a matched end. The first re-reflection
