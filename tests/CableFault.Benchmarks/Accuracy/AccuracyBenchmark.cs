@@ -3,11 +3,13 @@
 // Run (Release). Time is almost all Locate: the default run took 18 min on the shared 2-core machine (load ~20) with
 // Locate at a median 5 s per trace, and will shrink as Locate gets faster; `--cases 20` takes about 5 min.
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- accuracy [--cases N] [--out FILE]
-//       [--seed S] [--threads T] [--no-speed]
+//       [--seed S] [--threads T] [--no-speed] [--native FILE]
 //   --cases N    random runs in the main set (default 200; every 4th block of 10 by ngspice: 50 of 200);
 //                the side tests scale with N (close pairs N/6, at least 10; matched-line and noise-only N/12, at least 5)
 //   --out FILE   CSV with one row per true or reported event of every case (default accuracy-results.csv)
 //   --no-speed   skip the whole-process timing of `cablefault locate`
+//   --native FILE   also time this natively compiled cablefault executable (README, "A faster native build") on the
+//                same traces, interleaved with the JIT runs
 //   --locate-timeout S   cancel one Locate after S seconds (default 20) and count the run as failed (all its events
 //                missed): a few many-event runs take minutes and would blow the time budget
 //   --threads T  cases run side by side (default 2)
@@ -42,6 +44,7 @@ public static class AccuracyBenchmark
         double timeoutSeconds = 20;
         string output = "accuracy-results.csv";
         bool speed = true;
+        string? native = null;
         HashSet<int>? only = null;
         for (int i = 0; i < args.Length; i++)
         {
@@ -52,10 +55,11 @@ public static class AccuracyBenchmark
                 case "--seed": seed = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 case "--threads": threads = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 case "--no-speed": speed = false; break;
+                case "--native": native = args[++i]; break;
                 case "--only": only = args[++i].Split(',').Select(x => int.Parse(x, CultureInfo.InvariantCulture)).ToHashSet(); speed = false; break;
                 case "--locate-timeout": timeoutSeconds = double.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 default:
-                    Console.Error.WriteLine($"accuracy: unknown argument '{args[i]}'; use [--cases N] [--out FILE] [--seed S] [--threads T] [--no-speed] [--locate-timeout S]");
+                    Console.Error.WriteLine($"accuracy: unknown argument '{args[i]}'; use [--cases N] [--out FILE] [--seed S] [--threads T] [--no-speed] [--native FILE] [--locate-timeout S]");
                     return 2;
             }
         }
@@ -87,12 +91,12 @@ public static class AccuracyBenchmark
         // The model runs are the cost of locate that does not depend on how busy the machine is.
         Console.WriteLine($"cases run in {watch.Elapsed.TotalSeconds:0.#} s; {forwardRuns} forward-model runs inside locate ({forwardRuns / (double)all.Count:0} per trace)");
 
-        (double, double, int)? speedResult = null;
+        (IReadOnlyList<LocateSpeed.TraceSpeed> Traces, double AllProcessSeconds, double? AllNativeSeconds)? speedResult = null;
         if (speed)
         {
             string? cli = LocateSpeed.FindCli();
             if (cli is null) Console.WriteLine("speed: cablefault.dll not found beside the benchmark; build it with -c Release");
-            else speedResult = LocateSpeed.Measure(cli);
+            else speedResult = LocateSpeed.Measure(cli, native);
         }
 
         Console.WriteLine(Summary.Render(ordered, speedResult, Commit()));

@@ -11,7 +11,9 @@ namespace CableFault.Benchmarks.Accuracy;
 /// <summary>
 /// Speed target (issue: locate): `cablefault locate` on a 32 768-sample trace, whole process (start-up, reading, analysis,
 /// output), median of <see cref="Repeats"/> runs of the Release-built CLI dll, ≤ 0.5 s on these 2-core machines. Timed the
-/// way ProcessBenchmark times `simulate`.
+/// way ProcessBenchmark times `simulate`. The stated trace is the first of <see cref="Scenarios"/>; the others (a lossy
+/// feeder, a short drop with a tap, a plain open) show how far one trace's time is from the typical one: the model
+/// selection's path, and so its cost, changes from trace to trace.
 /// </summary>
 public static class LocateSpeed
 {
@@ -19,52 +21,106 @@ public static class LocateSpeed
 
     public const int SampleCount = 32768;
 
-    /// <summary>Median wall time of the process, s, and the in-process Locate median on the same trace, s.</summary>
-    public static (double ProcessSeconds, double InProcessSeconds, int Events) Measure(string cliPath)
+    /// <summary>One timed trace: its name, network, instrument and the CLI's cable arguments.</summary>
+    private sealed record Scenario(string Name, CableNetwork Network, double RiseSeconds, double IntervalSeconds, string[] CableArguments,
+        LocateOptions Options);
+
+    private static IReadOnlyList<Scenario> Scenarios()
     {
         var medium = new CableMedium(50, 0.66);
-        var network = new CableNetwork(new NetworkBranch(
-            new CableSegment(20, medium), new ShuntCapacitor(8e-12), new CableSegment(15, medium), new SeriesInductor(25e-9),
-            new CableSegment(3, new CableMedium(75, 0.66)), new ShuntResistor(500), new CableSegment(10, medium),
-            new CableSegment(150, medium), RunEnd.Open), "speed");
-        var settings = new InstrumentSettings
-        {
-            RiseTimeSeconds = 1e-9, SampleIntervalSeconds = 125e-12, SampleCount = SampleCount, PreTriggerSeconds = 5e-9,
-            NoiseRmsVolts = 1e-3, NoiseSeed = 7,
-        };
-        var trace = ForwardModel.Simulate(network, settings);
+        var rg213 = CableLibrary.BuiltIn.Get("RG-213").Medium;
+        var coax75 = new CableMedium(75, 0.82);
+        return
+        [
+            new("stated: C, L, 3 m of 75 Ω, 500 Ω leak, open at 198 m", new CableNetwork(new NetworkBranch(
+                new CableSegment(20, medium), new ShuntCapacitor(8e-12), new CableSegment(15, medium), new SeriesInductor(25e-9),
+                new CableSegment(3, new CableMedium(75, 0.66)), new ShuntResistor(500), new CableSegment(10, medium),
+                new CableSegment(150, medium), RunEnd.Open), "speed"), 1e-9, 125e-12, ["--vf", "0.66", "--z0", "50"],
+                new LocateOptions { VelocityFactor = 0.66, ImpedanceOhms = 50 }),
+            new("lossy RG-213 feeder: 4 Ω splice at 80 m, 4 m wet (40 Ω) at 150 m, short at 240 m", new CableNetwork(new NetworkBranch(
+                new CableSegment(80, rg213), new SeriesResistor(4), new CableSegment(70, rg213),
+                new CableSegment(4, new CableMedium(40, 0.66, rg213.Loss)), new CableSegment(86, rg213), RunEnd.Short), "feeder"),
+                1e-9, 100e-12, ["--cable", "RG-213"],
+                new LocateOptions { VelocityFactor = 0.66, ImpedanceOhms = 50, Loss = rg213.Loss }),
+            new("75 Ω drop: tap (1.5 m open branch) at 25 m, 5 pF at 40 m, open at 60 m", new CableNetwork(new NetworkBranch(
+                new CableSegment(25, coax75), new Junction([
+                    new NetworkBranch(new CableSegment(15, coax75), new ShuntCapacitor(5e-12), new CableSegment(20, coax75), RunEnd.Open),
+                    new NetworkBranch(new CableSegment(1.5, coax75), RunEnd.Open)])), "drop"),
+                0.3e-9, 25e-12, ["--vf", "0.82", "--z0", "75"], new LocateOptions { VelocityFactor = 0.82, ImpedanceOhms = 75 }),
+            new("plain 120 m of 50 Ω to an open", new CableNetwork(new NetworkBranch(new CableSegment(120, medium), RunEnd.Open), "plain"),
+                1e-9, 125e-12, ["--vf", "0.66", "--z0", "50"], new LocateOptions { VelocityFactor = 0.66, ImpedanceOhms = 50 }),
+        ];
+    }
+
+    /// <summary>Per trace: its name, the process median, s, the in-process Locate median, s, the events found, and the
+    /// native executable's process median, s (null when none was given).</summary>
+    public sealed record TraceSpeed(string Name, double ProcessSeconds, double InProcessSeconds, int Events, double? NativeSeconds);
+
+    /// <summary>Each scenario's medians, and the medians over every process run of them all, s (the native one null when
+    /// <paramref name="nativePath"/>, a natively compiled cablefault executable, is not given).</summary>
+    public static (IReadOnlyList<TraceSpeed> Traces, double AllProcessSeconds, double? AllNativeSeconds) Measure(string cliPath, string? nativePath)
+    {
+        var allNative = new List<double>();
         string folder = Directory.CreateTempSubdirectory("cf-acc-speed-").FullName;
-        string file = Path.Combine(folder, "speed.csv");
-        using (var stream = File.Create(file)) TraceCsvWriter.Write(trace, stream);
-
-        var options = new LocateOptions { VelocityFactor = 0.66, ImpedanceOhms = 50 };
-        var inProcess = new List<double>();
-        int events = 0;
-        for (int i = 0; i < Repeats; i++)
+        var all = new List<double>();
+        var traces = new List<TraceSpeed>();
+        try
         {
-            var watch = Stopwatch.StartNew();
-            events = Locator.Locate(trace, options).Events.Count;
-            inProcess.Add(watch.Elapsed.TotalSeconds);
-        }
-
-        var times = new List<double>();
-        for (int i = 0; i < Repeats; i++)
-        {
-            var info = new ProcessStartInfo("dotnet", ["exec", cliPath, "locate", file, "--vf", "0.66", "--z0", "50", "--format", "json"])
+            foreach (var scenario in Scenarios())
             {
-                RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
-            };
-            var watch = Stopwatch.StartNew();
-            using var process = Process.Start(info)!;
-            var stdout = process.StandardOutput.ReadToEndAsync();
-            var stderr = process.StandardError.ReadToEndAsync();
-            process.WaitForExit();
-            watch.Stop();
-            if (process.ExitCode != 0) throw new InvalidOperationException($"cablefault locate exited with {process.ExitCode}: {stderr.Result}");
-            times.Add(watch.Elapsed.TotalSeconds);
+                var settings = new InstrumentSettings
+                {
+                    RiseTimeSeconds = scenario.RiseSeconds, SampleIntervalSeconds = scenario.IntervalSeconds, SampleCount = SampleCount,
+                    PreTriggerSeconds = 5e-9, NoiseRmsVolts = 1e-3, NoiseSeed = 7,
+                };
+                var trace = ForwardModel.Simulate(scenario.Network, settings);
+                string file = Path.Combine(folder, scenario.Network.Name + ".csv");
+                using (var stream = File.Create(file)) TraceCsvWriter.Write(trace, stream);
+
+                var inProcess = new List<double>();
+                int events = 0;
+                for (int i = 0; i < Repeats; i++)
+                {
+                    var watch = Stopwatch.StartNew();
+                    events = Locator.Locate(trace, scenario.Options).Events.Count;
+                    inProcess.Add(watch.Elapsed.TotalSeconds);
+                }
+                var times = new List<double>();
+                var native = new List<double>();
+                string[] locate = ["locate", file, .. scenario.CableArguments, "--format", "json"];
+                for (int i = 0; i < Repeats; i++)
+                {
+                    // Interleaved, so that both builds see the same machine load.
+                    times.Add(TimeProcess("dotnet", ["exec", cliPath, .. locate]));
+                    if (nativePath is not null) native.Add(TimeProcess(nativePath, locate));
+                }
+                all.AddRange(times);
+                allNative.AddRange(native);
+                traces.Add(new TraceSpeed(scenario.Name, Median(times), Median(inProcess), events, native.Count > 0 ? Median(native) : null));
+            }
         }
-        try { Directory.Delete(folder, true); } catch (IOException) { }
-        return (Median(times), Median(inProcess), events);
+        finally
+        {
+            try { Directory.Delete(folder, true); } catch (IOException) { }
+        }
+        return (traces, Median(all), allNative.Count > 0 ? Median(allNative) : null);
+    }
+
+    /// <summary>Wall time of one process <paramref name="program"/> with <paramref name="arguments"/>, s.</summary>
+    private static double TimeProcess(string program, string[] arguments)
+    {
+        var info = new ProcessStartInfo(program, arguments)
+        {
+            RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
+        };
+        var watch = Stopwatch.StartNew();
+        using var process = Process.Start(info)!;
+        var stdout = process.StandardOutput.ReadToEndAsync();
+        var stderr = process.StandardError.ReadToEndAsync();
+        process.WaitForExit();
+        watch.Stop();
+        if (process.ExitCode != 0) throw new InvalidOperationException($"cablefault locate ({program}) exited with {process.ExitCode}: {stderr.Result}");
+        return watch.Elapsed.TotalSeconds;
     }
 
     private static double Median(List<double> values)
