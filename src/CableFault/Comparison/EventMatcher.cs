@@ -52,6 +52,10 @@ internal static class EventMatcher
     {
         double shift = Math.Abs(c.DistanceMeters - b.DistanceMeters);
         if (shift > windowMeters) return double.PositiveInfinity;
+        // An event too faint to be named is not the same event as a named one that reflects far more: a break that
+        // appears beside a faint bump of the reference is new, not the bump moved.
+        if ((b.Kind == EventKind.Unknown) != (c.Kind == EventKind.Unknown) && Math.Abs(c.Reflection - b.Reflection) >= ReflectionScale)
+            return double.PositiveInfinity;
         double kind = b.Kind == c.Kind ? 0 : KindPenalty;
         double reflection = ReflectionPenalty * Math.Min(1, Math.Abs(c.Reflection - b.Reflection) / ReflectionScale);
         return shift / windowMeters + kind + reflection;
