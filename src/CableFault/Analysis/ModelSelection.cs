@@ -118,6 +118,10 @@ internal static class ModelSelection
                 free[k] = true;
                 if (candidate.Events[i].HasValue) free[k + 1] = true;
             }
+            // An estimated loss is free too: what the later trace says about it changes with the events (a resistor and a
+            // step that reflect alike pass the end's echo back differently, and a loss fixed for one reading would stand
+            // against the other).
+            for (int k = free.Length - (candidate.Context.EstimateLoss ? RunModel.LossParameterCount : 0); k < free.Length; k++) free[k] = true;
             return new Trial(candidate, key, free);
         }
 
@@ -275,6 +279,7 @@ internal static class ModelSelection
         {
             // Polish: every parameter free, warm started from the selected model.
             best = ModelFitter.Fit(best.Model, data, variance, cancellation: cancellation);
+            best = WithoutFaintEvents(best, data, variance, logN, effectiveRiseSeconds, ref trials, cancellation);
             bestBic = Bic(best);
         }
         var evidence = EventEvidence(best, data, variance, logN, effectiveRiseSeconds);
@@ -496,6 +501,45 @@ internal static class ModelSelection
         {
             System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(e.InnerExceptions[0]).Throw();
         }
+    }
+
+    /// <summary>Most refits <see cref="WithoutFaintEvents"/> makes.</summary>
+    private const int MaximumFaintRemovals = 3;
+
+    /// <summary>
+    /// <paramref name="fit"/> without the events whose own signature is lost in the noise (peak below
+    /// <see cref="MinimumSignatureSignalToNoise"/>·σ), refitted: a last refit with every parameter free can shrink an
+    /// event to nothing or move it where it acts on nothing, and such an event is no detection (the rule Prune applies
+    /// during the selection).
+    /// </summary>
+    internal static ModelFit WithoutFaintEvents(ModelFit fit, FitData data, double variance, double logN, double riseSeconds,
+        ref int trials, CancellationToken cancellation)
+    {
+        double sigma = Math.Sqrt(variance);
+        for (int round = 0; round < MaximumFaintRemovals; round++)
+        {
+            var evidence = EventEvidence(fit, data, variance, logN, riseSeconds);
+            var kept = fit.Model.Events.Where((_, k) => Math.Abs(evidence[k].PeakSignatureVolts) >= MinimumSignatureSignalToNoise * sigma).ToList();
+            if (kept.Count == fit.Model.Events.Count) break;
+            DebugTrace?.Invoke($"faint after the polish: {Describe(fit.Model)} keeps {kept.Count}");
+            fit = ModelFitter.Fit(fit.Model.WithEvents(kept), data, variance, cancellation: cancellation);
+            trials++;
+        }
+        return fit;
+    }
+
+    /// <summary>
+    /// <paramref name="fit"/> without the events that lie past its first open or short: the run model ends there (see
+    /// <see cref="RunModel"/>), so they act on nothing, and an end with such a shadow looks as if it could be removed at
+    /// no cost. The refit starts at the same samples and stops at once.
+    /// </summary>
+    internal static ModelFit WithoutEventsPastEnd(ModelFit fit, FitData data, double variance, ref int trials, CancellationToken cancellation)
+    {
+        var m = fit.Model;
+        int end = Enumerable.Range(0, m.Events.Count).Where(i => m.Events[i].EndsRun).DefaultIfEmpty(-1).First();
+        if (end < 0 || end == m.Events.Count - 1) return fit;
+        trials++;
+        return ModelFitter.Fit(m.WithEvents(m.Events.Take(end + 1)), data, variance, cancellation: cancellation);
     }
 
     /// <summary>Branch round trips the tap scan tries, in effective rise times (geometric, 1 to 40).</summary>

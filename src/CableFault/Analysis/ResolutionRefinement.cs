@@ -119,6 +119,8 @@ internal static class ResolutionRefinement
             trials++;
         }
         best = CoincidentEvents.Resolve(best, fine, variance, fineRiseSeconds, ref trials, cancellation);
+        best = ModelSelection.WithoutEventsPastEnd(best, fine, variance, ref trials, cancellation);
+        best = ModelSelection.WithoutFaintEvents(best, fine, variance, logN, fineRiseSeconds, ref trials, cancellation);
         bestBic = Bic(best);
         var evidence = ModelSelection.EventEvidence(best, fine, variance, logN, fineRiseSeconds);
         return new ModelSelection.Result(best, variance, bestBic, evidence, trials);
