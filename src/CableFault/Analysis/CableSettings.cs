@@ -14,7 +14,7 @@ namespace CableFault.Analysis;
 /// <param name="ImpedanceOhms">Cable Z₀, Ω.</param>
 /// <param name="ImpedanceSource">option | metadata | cable | default.</param>
 /// <param name="SourceImpedanceOhms">Instrument source impedance, Ω.</param>
-/// <param name="Loss">Cable loss model, or null when unknown (no loss correction).</param>
+/// <param name="Loss">Cable loss model, or null when unknown (the locate fit then estimates it).</param>
 /// <param name="Cable">The cable type, when one was named.</param>
 /// <param name="Warnings">What the user should know about these choices.</param>
 public sealed record CableSettings(
@@ -102,9 +102,11 @@ public sealed record CableSettings(
         throw new InputException($"trace metadata '{key}={text}' is not a number; fix the '# {key}=' line or give the value as an option");
     }
 
-    /// <summary>Options for <see cref="Locator"/> built from these settings.</summary>
+    /// <summary>Options for <see cref="Locator"/> built from these settings; a loss that no setting gives is estimated
+    /// from the trace (see <see cref="LocateOptions.EstimateLoss"/>).</summary>
     public LocateOptions ToLocateOptions() => new()
     {
+        EstimateLoss = Loss is null,
         VelocityFactor = VelocityFactor,
         VelocityFactorRelativeSigma = VelocityFactorRelativeSigma,
         VelocityFactorSource = VelocityFactorSource,

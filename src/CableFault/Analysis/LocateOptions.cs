@@ -21,8 +21,13 @@ public sealed record LocateOptions
     /// <summary>Instrument source impedance Z_s, Ω (&gt; 0). Default 50.</summary>
     public double SourceImpedanceOhms { get; init; } = 50;
 
-    /// <summary>Cable loss model; null for lossless.</summary>
+    /// <summary>Cable loss model; null when not known (lossless, unless <see cref="EstimateLoss"/>).</summary>
     public CableLossModel? Loss { get; init; }
+
+    /// <summary>When <see cref="Loss"/> is null, estimate the cable's loss (skin effect and loop DC resistance) from the
+    /// trace in the model fit rather than take the cable as lossless: a lossy cable fitted as lossless leaves a misfit
+    /// that the fit explains with invented events. Default false.</summary>
+    public bool EstimateLoss { get; init; }
 
     /// <summary>Round-trip time from the incident edge's 50 % point to the reference plane, s (e.g. a launch lead's
     /// delay found by calibration); distances are measured from there. Null means zero.</summary>

@@ -1,3 +1,4 @@
+using CableFault.Cables;
 using System.Globalization;
 using CableFault.Traces;
 
@@ -81,6 +82,7 @@ public static class Locator
         double z0 = options.ImpedanceOhms, zs = options.SourceImpedanceOhms;
         // The port sees the divider 2A·Z₀/(Z_s + Z₀) on the first plateau (DESIGN.md §2): A is V_s/2.
         double amplitude = characteristics.IncidentAmplitudeVolts * (zs + z0) / (2 * z0);
+        bool estimateLoss = options.Loss is null && options.EstimateLoss;
         var context = new RunModelContext(options.VelocityFactor, z0, zs, options.Loss, rise, amplitude);
 
         if (!options.RefineWithModel)
@@ -102,6 +104,15 @@ public static class Locator
         double riseEffective = data.EffectiveRiseSeconds(rise);
         options.Progress?.Report(0.4);
 
+        CableLossModel? estimatedLoss = null;
+        if (estimateLoss)
+        {
+            estimatedLoss = LossEstimation.Estimate(initial, data, options.CancellationToken);
+            // A lossy run keeps its loss as two parameters of the model: every full refit in the selection (the first,
+            // after a removal, the polish) estimates it again with the events as they then are.
+            context = context with { Loss = estimatedLoss, EstimateLoss = estimatedLoss is not null };
+            initial = initial.WithContext(context);
+        }
         var selection = ModelSelection.Select(initial, data, riseEffective, options.CancellationToken);
         if (data.FilterSigmaSeconds > 0)
         {
@@ -176,6 +187,11 @@ public static class Locator
                 $"{EventKindNames.ToJsonName(inside.Kind).Replace('_', ' ')} (ρ {inside.Reflection:+0.###;-0.###}) at the instrument's connector, inside the blind zone ({blindMeters:0.###} m): the cable or connector against the instrument, not located."));
         }
 
+        if (estimateLoss)
+            warnings.Add(estimatedLoss is not null && model.Context.Loss is { } estimated
+                ? string.Create(CultureInfo.InvariantCulture,
+                    $"no cable loss was given: estimated from the trace as {estimated.AttenuationDbPer100m(100e6):0.#} dB/100 m at 100 MHz and {estimated.DcResistanceOhmsPerMeter:0.###} Ω/m DC loop resistance; give the cable type for its data-sheet loss.")
+                : "no cable loss was given, and the trace shows none the fit can tell: the cable was read as lossless; give the cable type for its data-sheet loss.");
         double rms = Math.Sqrt(fit.ResidualSumOfSquares / data.Samples.Length);
         if (rms > 3 * Math.Sqrt(selection.VarianceVolts2))
             warnings.Add(string.Create(CultureInfo.InvariantCulture,

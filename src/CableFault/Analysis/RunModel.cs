@@ -59,8 +59,15 @@ internal sealed class RunModel
     /// <summary>Events in order of round-trip time (relative to the incident edge).</summary>
     internal IReadOnlyList<RunModelEvent> Events { get; }
 
+    /// <summary>Parameters of an estimated loss, at the end of <see cref="ToVector"/>.</summary>
+    internal const int LossParameterCount = 2;
+
     /// <summary>Number of parameters in <see cref="ToVector"/>.</summary>
-    internal int ParameterCount => GlobalParameterCount + Events.Sum(e => e.HasValue ? 2 : 1);
+    internal int ParameterCount => GlobalParameterCount + Events.Sum(e => e.HasValue ? 2 : 1) + (Context.EstimateLoss ? LossParameterCount : 0);
+
+    /// <summary>The same run read with other cable settings.</summary>
+    internal RunModel WithContext(RunModelContext context) =>
+        new(context, AmplitudeVolts, TimeOffsetSeconds, RiseSeconds, Events, OffsetVolts);
 
     internal RunModel WithEvents(IEnumerable<RunModelEvent> events) =>
         new(Context, AmplitudeVolts, TimeOffsetSeconds, RiseSeconds, events.ToList(), OffsetVolts);
@@ -77,7 +84,10 @@ internal sealed class RunModel
 
     /// <summary>
     /// Dimensionless parameters: [A/A_ref, δt₀/t_ref, ln(t_r/t_ref), offset/A_ref] then per event [t/t_ref, ln(value/scale)]
-    /// (open and short have no size).
+    /// (open and short have no size), then, when the loss is estimated, [k_c/k_ref, R_dc/R_ref] (see
+    /// <see cref="RunModelContext"/>). The loss coefficients enter as their absolute values: linear, so that a lossless
+    /// run is reachable (a logarithm would need −∞), and mirrored, so that they never turn negative and the fit does not
+    /// stick at zero.
     /// </summary>
     internal double[] ToVector()
     {
@@ -94,6 +104,12 @@ internal sealed class RunModel
             u.Add(e.RoundTripSeconds / c.ReferenceRiseSeconds);
             if (e.HasValue) u.Add(Math.Log(e.Value / ValueScale(e.Element, c)));
         }
+        if (c.EstimateLoss)
+        {
+            var loss = c.Loss ?? CableLossModel.Lossless;
+            u.Add(loss.SkinLossNepersPerMeterPerRootHertz / RunModelContext.SkinLossScale);
+            u.Add(loss.DcResistanceOhmsPerMeter / RunModelContext.DcResistanceScale);
+        }
         return u.ToArray();
     }
 
@@ -108,6 +124,12 @@ internal sealed class RunModel
             double t = u[k++] * c.ReferenceRiseSeconds;
             double value = e.HasValue ? Math.Exp(Math.Clamp(u[k++], -40, 40)) * ValueScale(e.Element, c) : double.NaN;
             events.Add(e with { RoundTripSeconds = t, Value = value });
+        }
+        if (c.EstimateLoss)
+        {
+            double skin = Math.Min(Math.Abs(u[k++]), RunModelContext.MaximumLossScales) * RunModelContext.SkinLossScale;
+            double dc = Math.Min(Math.Abs(u[k]), RunModelContext.MaximumLossScales) * RunModelContext.DcResistanceScale;
+            c = c with { Loss = new CableLossModel(skin, 0, dc) };
         }
         return new RunModel(c, u[0] * c.ReferenceAmplitudeVolts, u[1] * c.ReferenceRiseSeconds,
             Math.Exp(Math.Clamp(u[2], -5, 5)) * c.ReferenceRiseSeconds, events, u[3] * c.ReferenceAmplitudeVolts);

@@ -10,9 +10,26 @@ namespace CableFault.Analysis;
 /// <param name="Loss">Cable loss model, null for lossless.</param>
 /// <param name="ReferenceRiseSeconds">Scale of time parameters (the measured rise), s.</param>
 /// <param name="ReferenceAmplitudeVolts">Scale of the amplitude parameter (the measured incident step), V.</param>
+/// <param name="EstimateLoss">True when the loss was not given: <see cref="Loss"/> is then an estimate, and its two
+/// coefficients are parameters of the run model (see <see cref="RunModel.ToVector"/>).</param>
 internal sealed record RunModelContext(double VelocityFactor, double ImpedanceOhms, double SourceImpedanceOhms,
-    CableLossModel? Loss, double ReferenceRiseSeconds, double ReferenceAmplitudeVolts)
+    CableLossModel? Loss, double ReferenceRiseSeconds, double ReferenceAmplitudeVolts, bool EstimateLoss = false)
 {
+    /// <summary>Scale of the estimated skin-effect coefficient: 10 dB/100 m at 100 MHz (a mid-size coax; common practice),
+    /// in Np/m/√Hz.</summary>
+    internal const double SkinLossScale = 10.0 / 100 * CableLossModel.NepersPerDecibel / 1e4;
+
+    /// <summary>Scale of the estimated loop DC resistance: 0.05 Ω/m (a thin coax or pair; from memory).</summary>
+    internal const double DcResistanceScale = 0.05;
+
+    /// <summary>Largest estimated coefficient, in units of its scale (100 dB/100 m at 100 MHz; 0.5 Ω/m): above any cable a
+    /// step reflectometer is used on, so that a misfit of another kind is not taken for an absurd loss.</summary>
+    internal const double MaximumLossScales = 10;
+
+    /// <summary>Where the estimate starts: a fifth of each scale (2 dB/100 m at 100 MHz and 0.01 Ω/m), small enough for a
+    /// lossless run and large enough that the fit's derivatives with respect to both are not zero.</summary>
+    internal static CableLossModel EstimateStart { get; } = new(0.2 * SkinLossScale, 0, 0.2 * DcResistanceScale);
+
     /// <summary>Propagation speed v = VF·c, m/s.</summary>
     internal double VelocityMetersPerSecond => VelocityFactor * PhysicalConstants.SpeedOfLightMetersPerSecond;
 

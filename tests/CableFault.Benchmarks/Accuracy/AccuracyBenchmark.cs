@@ -8,6 +8,7 @@
 //                the side tests scale with N (close pairs N/6, at least 10; matched-line and noise-only N/12, at least 5)
 //   --out FILE   CSV with one row per true or reported event of every case (default accuracy-results.csv)
 //   --no-speed   skip the whole-process timing of `cablefault locate`
+//   --loss-scale F   tell locate each lossy run's loss times F (default 1; 0: no loss given, only VF and Z0)
 //   --native FILE   also time this natively compiled cablefault executable (README, "A faster native build") on the
 //                same traces, interleaved with the JIT runs
 //   --locate-timeout S   cancel one Locate after S seconds (default 20) and count the run as failed (all its events
@@ -25,6 +26,7 @@ using System.Diagnostics;
 using System.Globalization;
 using System.Text;
 using CableFault.Analysis;
+using CableFault.Cables;
 
 namespace CableFault.Benchmarks.Accuracy;
 
@@ -44,6 +46,7 @@ public static class AccuracyBenchmark
         double timeoutSeconds = 20;
         string output = "accuracy-results.csv";
         bool speed = true;
+        double lossScale = 1;
         string? native = null;
         HashSet<int>? only = null;
         for (int i = 0; i < args.Length; i++)
@@ -55,11 +58,12 @@ public static class AccuracyBenchmark
                 case "--seed": seed = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 case "--threads": threads = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 case "--no-speed": speed = false; break;
+                case "--loss-scale": lossScale = double.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 case "--native": native = args[++i]; break;
                 case "--only": only = args[++i].Split(',').Select(x => int.Parse(x, CultureInfo.InvariantCulture)).ToHashSet(); speed = false; break;
                 case "--locate-timeout": timeoutSeconds = double.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 default:
-                    Console.Error.WriteLine($"accuracy: unknown argument '{args[i]}'; use [--cases N] [--out FILE] [--seed S] [--threads T] [--no-speed] [--native FILE] [--locate-timeout S]");
+                    Console.Error.WriteLine($"accuracy: unknown argument '{args[i]}'; use [--cases N] [--out FILE] [--seed S] [--threads T] [--no-speed] [--native FILE] [--loss-scale F] [--locate-timeout S]");
                     return 2;
             }
         }
@@ -70,10 +74,11 @@ public static class AccuracyBenchmark
         for (int i = 0; i < closePairs; i++) all.Add(RunGenerator.ClosePair(10_000 + i, seed + 10_000 + i));
         for (int i = 0; i < nothing; i++) all.Add(RunGenerator.NothingThere(20_000 + i, seed + 20_000 + i, noiseOnly: false));
         for (int i = 0; i < nothing; i++) all.Add(RunGenerator.NothingThere(30_000 + i, seed + 30_000 + i, noiseOnly: true));
-        if (only is not null) return CaseDiagnosis.Run(all.Where(c => only.Contains(c.Index)).ToList(), timeoutSeconds);
+        if (only is not null) return CaseDiagnosis.Run(all.Where(c => only.Contains(c.Index)).ToList(), timeoutSeconds, lossScale);
 
         Console.WriteLine($"accuracy benchmark: {cases} random runs ({all.Count(c => c.Source == TraceSource.Ngspice)} by ngspice), " +
-            $"{closePairs} close-pair, {nothing} matched-line and {nothing} noise-only traces; seed {seed}; {threads} thread(s)");
+            $"{closePairs} close-pair, {nothing} matched-line and {nothing} noise-only traces; seed {seed}; {threads} thread(s)" +
+            (lossScale == 1 ? "" : lossScale == 0 ? "; NO LOSS told to locate (VF and Z0 only)" : $"; loss told to locate ×{lossScale} of the run's"));
         var watch = Stopwatch.StartNew();
         long runsBefore = Interlocked.Read(ref RunModel.SimulationCount);
         var results = new ConcurrentBag<CaseResult>();
@@ -82,7 +87,7 @@ public static class AccuracyBenchmark
         Parallel.ForEach(all.OrderBy(c => c.Source == TraceSource.Ngspice ? 0 : 1).ThenBy(c => c.Index),
             new ParallelOptions { MaxDegreeOfParallelism = threads }, c =>
             {
-                results.Add(RunCase(c, timeoutSeconds));
+                results.Add(RunCase(c, timeoutSeconds, lossScale));
                 int k = Interlocked.Increment(ref done);
                 if (k % 50 == 0) Console.Error.WriteLine($"  {k}/{all.Count} cases, {watch.Elapsed.TotalSeconds:0} s");
             });
@@ -110,7 +115,15 @@ public static class AccuracyBenchmark
     /// i mod 10), so ngspice sees every kind; 240 cases give 60 ngspice runs, 200 give 50.</summary>
     private static bool IsNgspice(int index) => index / 10 % 4 == 0;
 
-    private static CaseResult RunCase(AccuracyCase c, double timeoutSeconds)
+    /// <summary>The loss locate is told: the run's own, every coefficient times <paramref name="scale"/> (a catalogue value
+    /// that is off), or none when the scale is 0 (only VF and Z₀ given, as from --vf and --z0; locate then estimates it).</summary>
+    internal static CableLossModel? StatedLoss(CableLossModel? loss, double scale) =>
+        scale == 1 || loss is null ? loss
+        : scale == 0 ? null
+        : new CableLossModel(loss.SkinLossNepersPerMeterPerRootHertz * scale, loss.DielectricLossNepersPerMeterPerHertz * scale,
+            loss.DcResistanceOhmsPerMeter * scale);
+
+    private static CaseResult RunCase(AccuracyCase c, double timeoutSeconds, double lossScale)
     {
         using var cancel = new CancellationTokenSource(TimeSpan.FromSeconds(timeoutSeconds));
         var trace = TraceMaker.Make(c);
@@ -118,8 +131,8 @@ public static class AccuracyBenchmark
         var naiveScore = Scoring.Score(c, naive);
         var options = new LocateOptions
         {
-            VelocityFactor = c.VelocityFactor, ImpedanceOhms = c.ImpedanceOhms, SourceImpedanceOhms = c.ImpedanceOhms, Loss = c.Loss,
-            CancellationToken = cancel.Token,
+            VelocityFactor = c.VelocityFactor, ImpedanceOhms = c.ImpedanceOhms, SourceImpedanceOhms = c.ImpedanceOhms,
+            Loss = StatedLoss(c.Loss, lossScale), EstimateLoss = lossScale == 0, CancellationToken = cancel.Token,
         };
         var watch = Stopwatch.StartNew();
         try

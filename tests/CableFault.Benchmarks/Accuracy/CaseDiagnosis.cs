@@ -8,7 +8,7 @@ namespace CableFault.Benchmarks.Accuracy;
 /// and the number of forward-model runs it took — for finding out why a case fails.</summary>
 public static class CaseDiagnosis
 {
-    public static int Run(IReadOnlyList<AccuracyCase> cases, double timeoutSeconds)
+    public static int Run(IReadOnlyList<AccuracyCase> cases, double timeoutSeconds, double lossScale = 1)
     {
         foreach (var c in cases)
         {
@@ -25,8 +25,8 @@ public static class CaseDiagnosis
             {
                 var result = Locator.Locate(trace, new LocateOptions
                 {
-                    VelocityFactor = c.VelocityFactor, ImpedanceOhms = c.ImpedanceOhms, SourceImpedanceOhms = c.ImpedanceOhms, Loss = c.Loss,
-                    CancellationToken = cancel.Token,
+                    VelocityFactor = c.VelocityFactor, ImpedanceOhms = c.ImpedanceOhms, SourceImpedanceOhms = c.ImpedanceOhms,
+                    Loss = AccuracyBenchmark.StatedLoss(c.Loss, lossScale), EstimateLoss = lossScale == 0, CancellationToken = cancel.Token,
                 });
                 double seconds = watch.Elapsed.TotalSeconds;
                 foreach (var e in result.Events)
