@@ -17,7 +17,9 @@ namespace CableFault.Analysis;
 internal static class LossEstimation
 {
     /// <summary>The estimated loss, or null when the trace does not show one the criterion accepts.</summary>
-    /// <param name="initial">The starting model; its context's loss is the estimate's start.</param>
+    /// <param name="initial">The starting model (the detector's events); its own context's loss is not used.</param>
+    /// <param name="data">The data the selection fits.</param>
+    /// <param name="cancellation">Cancels the probe fits.</param>
     internal static CableLossModel? Estimate(RunModel initial, FitData data, CancellationToken cancellation)
     {
         var lossyStart = initial.WithContext(initial.Context with { Loss = RunModelContext.EstimateStart, EstimateLoss = true });
