@@ -43,15 +43,7 @@ internal static class CoincidentEvents
                     continue;
                 list.RemoveAt(drop);
                 var candidate = m.WithEvents(list);
-                var free = new bool[candidate.ParameterCount];
-                for (int g = 0; g < RunModel.GlobalParameterCount; g++) free[g] = true;
-                for (int i = Math.Max(0, pair - 1); i < candidate.Events.Count; i++)
-                {
-                    int k = candidate.TimeParameterIndex(i);
-                    free[k] = true;
-                    if (candidate.Events[i].HasValue) free[k + 1] = true;
-                }
-                var fit = ModelFitter.Fit(candidate, data, variance, free, TrialIterations, cancellation);
+                var fit = ModelFitter.Fit(candidate, data, variance, candidate.FreeMask(pair - 1, int.MaxValue, withLoss: false), TrialIterations, cancellation);
                 trials++;
                 double bic = Bic(fit);
                 if (bic < winnerBic) { winner = fit; winnerBic = bic; }

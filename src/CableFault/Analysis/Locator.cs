@@ -1,5 +1,5 @@
-using CableFault.Cables;
 using System.Globalization;
+using CableFault.Cables;
 using CableFault.Traces;
 
 namespace CableFault.Analysis;

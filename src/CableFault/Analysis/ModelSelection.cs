@@ -109,20 +109,10 @@ internal static class ModelSelection
             string key = Key(candidate);
             if (!tried.Add(key)) { DebugTrace?.Invoke($"skip (tried) {key}"); return null; }
             trials++;
-            var free = new bool[candidate.ParameterCount];
-            for (int g = 0; g < RunModel.GlobalParameterCount; g++) free[g] = true;
-            int firstFree = Math.Max(0, focus.Min() - 1);
-            for (int i = firstFree; i < candidate.Events.Count; i++)
-            {
-                int k = candidate.TimeParameterIndex(i);
-                free[k] = true;
-                if (candidate.Events[i].HasValue) free[k + 1] = true;
-            }
             // An estimated loss is free too: what the later trace says about it changes with the events (a resistor and a
             // step that reflect alike pass the end's echo back differently, and a loss fixed for one reading would stand
             // against the other).
-            for (int k = free.Length - (candidate.Context.EstimateLoss ? RunModel.LossParameterCount : 0); k < free.Length; k++) free[k] = true;
-            return new Trial(candidate, key, free);
+            return new Trial(candidate, key, candidate.FreeMask(focus.Min() - 1, int.MaxValue, withLoss: true));
         }
 
         // The trial's fit and criterion, judged against criterion `against`; touches no state of the selection, so the
@@ -456,7 +446,7 @@ internal static class ModelSelection
                 // An event whose own signature is lost in the noise is no detection, whatever it does to the criterion
                 // (it is soaking up misfit elsewhere): it goes first, unconditionally.
                 double sigma = Math.Sqrt(variance);
-                int faint = Enumerable.Range(0, ev.Count).Where(k => Math.Abs(ev[k].PeakSignatureVolts) < MinimumSignatureSignalToNoise * sigma)
+                int faint = Enumerable.Range(0, ev.Count).Where(k => IsFaint(ev[k], sigma))
                     .DefaultIfEmpty(-1).MinBy(k => k < 0 ? 0 : Math.Abs(ev[k].PeakSignatureVolts));
                 if (faint >= 0)
                 {
@@ -503,6 +493,11 @@ internal static class ModelSelection
         }
     }
 
+    /// <summary>True when an event's own signature is lost in noise of RMS <paramref name="sigmaVolts"/> (peak below
+    /// <see cref="MinimumSignatureSignalToNoise"/>·σ): no detection, whatever it does to the criterion.</summary>
+    private static bool IsFaint(Evidence evidence, double sigmaVolts) =>
+        Math.Abs(evidence.PeakSignatureVolts) < MinimumSignatureSignalToNoise * sigmaVolts;
+
     /// <summary>Most refits <see cref="WithoutFaintEvents"/> makes.</summary>
     private const int MaximumFaintRemovals = 3;
 
@@ -519,7 +514,7 @@ internal static class ModelSelection
         for (int round = 0; round < MaximumFaintRemovals; round++)
         {
             var evidence = EventEvidence(fit, data, variance, logN, riseSeconds);
-            var kept = fit.Model.Events.Where((_, k) => Math.Abs(evidence[k].PeakSignatureVolts) >= MinimumSignatureSignalToNoise * sigma).ToList();
+            var kept = fit.Model.Events.Where((_, k) => !IsFaint(evidence[k], sigma)).ToList();
             if (kept.Count == fit.Model.Events.Count) break;
             DebugTrace?.Invoke($"faint after the polish: {Describe(fit.Model)} keeps {kept.Count}");
             fit = ModelFitter.Fit(fit.Model.WithEvents(kept), data, variance, cancellation: cancellation);

@@ -129,16 +129,5 @@ internal static class ResolutionRefinement
     private sealed record RunModelFit(ModelFit Fit, double Bic);
 
     /// <summary>The edge parameters and events <paramref name="from"/>..<paramref name="to"/> (clamped) free, the rest fixed.</summary>
-    private static bool[] FreeAround(RunModel model, int from, int to)
-    {
-        var free = new bool[model.ParameterCount];
-        for (int g = 0; g < RunModel.GlobalParameterCount; g++) free[g] = true;
-        for (int i = Math.Max(0, from); i <= Math.Min(model.Events.Count - 1, to); i++)
-        {
-            int k = model.TimeParameterIndex(i);
-            free[k] = true;
-            if (model.Events[i].HasValue) free[k + 1] = true;
-        }
-        return free;
-    }
+    private static bool[] FreeAround(RunModel model, int from, int to) => model.FreeMask(from, to, withLoss: false);
 }

@@ -135,6 +135,26 @@ internal sealed class RunModel
             Math.Exp(Math.Clamp(u[2], -5, 5)) * c.ReferenceRiseSeconds, events, u[3] * c.ReferenceAmplitudeVolts);
     }
 
+    /// <summary>
+    /// Which parameters a partial fit frees: the incident edge's (amplitude, time offset, rise, level offset), the time and
+    /// size of events <paramref name="firstEvent"/>..<paramref name="lastEvent"/> (clamped to the events there are), and,
+    /// when <paramref name="withLoss"/> and the loss is estimated, its two coefficients.
+    /// </summary>
+    internal bool[] FreeMask(int firstEvent, int lastEvent, bool withLoss)
+    {
+        var free = new bool[ParameterCount];
+        for (int g = 0; g < GlobalParameterCount; g++) free[g] = true;
+        for (int i = Math.Max(0, firstEvent); i <= Math.Min(Events.Count - 1, lastEvent); i++)
+        {
+            int k = TimeParameterIndex(i);
+            free[k] = true;
+            if (Events[i].HasValue) free[k + 1] = true;
+        }
+        if (withLoss && Context.EstimateLoss)
+            for (int k = free.Length - LossParameterCount; k < free.Length; k++) free[k] = true;
+        return free;
+    }
+
     /// <summary>Index of event <paramref name="eventIndex"/>'s time parameter in <see cref="ToVector"/>.</summary>
     internal int TimeParameterIndex(int eventIndex)
     {
