@@ -70,21 +70,8 @@ public static class BatchBenchmark
         TraceCsvWriter.Write(trace, writer);
     }
 
-    private static double Time(string cli, string folder, int jobs)
-    {
-        var info = new ProcessStartInfo("dotnet", $"\"{cli}\" locate \"{folder}\" --jobs {jobs} --format json")
-        {
-            RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
-        };
-        var watch = Stopwatch.StartNew();
-        using var process = Process.Start(info)!;
-        var output = process.StandardOutput.ReadToEndAsync();
-        var error = process.StandardError.ReadToEndAsync();
-        process.WaitForExit();
-        watch.Stop();
-        if (process.ExitCode != 0) throw new InvalidOperationException($"locate exited with {process.ExitCode}: {error.Result}");
-        return watch.Elapsed.TotalSeconds;
-    }
+    private static double Time(string cli, string folder, int jobs) =>
+        ProcessTimer.WallSeconds("dotnet", [cli, "locate", folder, "--jobs", jobs.ToString(System.Globalization.CultureInfo.InvariantCulture), "--format", "json"]);
 
     private static string? FindCli()
     {

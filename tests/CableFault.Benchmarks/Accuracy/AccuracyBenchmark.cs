@@ -58,8 +58,21 @@ public static class AccuracyBenchmark
                 case "--seed": seed = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 case "--threads": threads = int.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 case "--no-speed": speed = false; break;
-                case "--loss-scale": lossScale = double.Parse(args[++i], CultureInfo.InvariantCulture); break;
-                case "--native": native = args[++i]; break;
+                case "--loss-scale":
+                    if (i + 1 >= args.Length || !double.TryParse(args[++i], NumberStyles.Float, CultureInfo.InvariantCulture, out lossScale) || !(lossScale >= 0) || !double.IsFinite(lossScale))
+                    {
+                        Console.Error.WriteLine("accuracy: --loss-scale needs a number ≥ 0 (1: the run's own loss, 0: none told), e.g. --loss-scale 0");
+                        return 2;
+                    }
+                    break;
+                case "--native":
+                    if (i + 1 >= args.Length || !File.Exists(args[i + 1]))
+                    {
+                        Console.Error.WriteLine($"accuracy: --native needs the path of a natively built cablefault executable{(i + 1 < args.Length ? $"; '{args[i + 1]}' does not exist" : "")} (README, \"A faster native build\")");
+                        return 2;
+                    }
+                    native = args[++i];
+                    break;
                 case "--only": only = args[++i].Split(',').Select(x => int.Parse(x, CultureInfo.InvariantCulture)).ToHashSet(); speed = false; break;
                 case "--locate-timeout": timeoutSeconds = double.Parse(args[++i], CultureInfo.InvariantCulture); break;
                 default:

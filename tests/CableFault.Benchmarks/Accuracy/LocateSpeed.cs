@@ -91,8 +91,8 @@ public static class LocateSpeed
                 for (int i = 0; i < Repeats; i++)
                 {
                     // Interleaved, so that both builds see the same machine load.
-                    times.Add(TimeProcess("dotnet", ["exec", cliPath, .. locate]));
-                    if (nativePath is not null) native.Add(TimeProcess(nativePath, locate));
+                    times.Add(ProcessTimer.WallSeconds("dotnet", ["exec", cliPath, .. locate]));
+                    if (nativePath is not null) native.Add(ProcessTimer.WallSeconds(nativePath, locate));
                 }
                 all.AddRange(times);
                 allNative.AddRange(native);
@@ -104,23 +104,6 @@ public static class LocateSpeed
             try { Directory.Delete(folder, true); } catch (IOException) { }
         }
         return (traces, Median(all), allNative.Count > 0 ? Median(allNative) : null);
-    }
-
-    /// <summary>Wall time of one process <paramref name="program"/> with <paramref name="arguments"/>, s.</summary>
-    private static double TimeProcess(string program, string[] arguments)
-    {
-        var info = new ProcessStartInfo(program, arguments)
-        {
-            RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
-        };
-        var watch = Stopwatch.StartNew();
-        using var process = Process.Start(info)!;
-        var stdout = process.StandardOutput.ReadToEndAsync();
-        var stderr = process.StandardError.ReadToEndAsync();
-        process.WaitForExit();
-        watch.Stop();
-        if (process.ExitCode != 0) throw new InvalidOperationException($"cablefault locate ({program}) exited with {process.ExitCode}: {stderr.Result}");
-        return watch.Elapsed.TotalSeconds;
     }
 
     private static double Median(List<double> values)
