@@ -25,8 +25,11 @@ internal static class LossEstimation
         var lossyStart = initial.WithContext(initial.Context with { Loss = RunModelContext.EstimateStart, EstimateLoss = true });
         var losslessStart = initial.WithContext(initial.Context with { Loss = null, EstimateLoss = false });
         double variance = ModelSelection.SampleVariance(data, initial);
-        var lossy = ModelFitter.Fit(lossyStart, data, variance, cancellation: cancellation);
-        var lossless = ModelFitter.Fit(losslessStart, data, variance, cancellation: cancellation);
+        // The two readings are independent: fitted side by side (the machines have two cores).
+        var fits = new ModelFit[2];
+        ModelSelection.ForEachInParallel(2, k => fits[k] = ModelFitter.Fit(k == 0 ? lossyStart : losslessStart, data, variance,
+            cancellation: cancellation), cancellation);
+        var (lossy, lossless) = (fits[0], fits[1]);
         double lossyBic = ModelSelection.Criterion(lossy, data, variance);
         double losslessBic = ModelSelection.Criterion(lossless, data, variance);
         if (!(lossyBic < losslessBic - Margin(losslessBic)) || AtBound(lossy.Model.Context.Loss)) return null;

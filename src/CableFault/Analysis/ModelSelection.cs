@@ -314,8 +314,11 @@ internal static class ModelSelection
                 var m = best.Model;
                 // A narrow pair of boundaries that returns may be a spot (or, if capacitive, a tap) the fit bent into an
                 // extreme section; fewer parameters, so it need only not lose.
+                // Or a cluster may be two spots, one at each end (as many parameters as two boundaries, so those must
+                // win by the margin; fewer than a cluster of three).
                 var spots = ReactiveSections.SpotCandidates(m, i, effectiveRiseSeconds);
-                if (spots.Count > 0 && TryBest(spots, simpler: true, i)) continue;
+                spots.AddRange(ReactiveSections.ClusterAsSpots(m, i, effectiveRiseSeconds));
+                if (spots.Count > 0 && TryBest(spots, simpler: null, i)) continue;
                 if (!ReactiveSections.IsReactive(m.Events[i].Element)) { i++; continue; }
                 int last = ReactiveSections.ClusterEnd(m, i, effectiveRiseSeconds);
                 double span = m.Events[last].RoundTripSeconds - m.Events[i].RoundTripSeconds;
@@ -476,7 +479,7 @@ internal static class ModelSelection
 
     /// <summary>Runs <paramref name="body"/> for 0 … count − 1 on the thread pool; the first failure is rethrown as it was
     /// thrown (a cancellation stays an <see cref="OperationCanceledException"/>).</summary>
-    private static void ForEachInParallel(int count, Action<int> body, CancellationToken cancellation)
+    internal static void ForEachInParallel(int count, Action<int> body, CancellationToken cancellation)
     {
         if (count <= 1)
         {

@@ -126,6 +126,77 @@ internal static class ReactiveSections
         return m.WithEvents(list);
     }
 
+    /// <summary>Widest cluster of events, in effective rise times, tried as spots by <see cref="ClusterAsSpots"/>: beyond
+    /// it a section shows its flat top and two spots the dip between them, and the fit tells them apart unaided.</summary>
+    internal const double SpotClusterMaximumRiseTimes = 4;
+
+    /// <summary>Most events a cluster read as spots may hold.</summary>
+    private const int SpotClusterMaximumEvents = 3;
+
+    /// <summary>
+    /// Clusters of two or three events from <paramref name="first"/> (boundaries and spots, at most
+    /// <see cref="SpotClusterMaximumRiseTimes"/> effective rises from first to last, the line after them back within
+    /// <see cref="ReturnRelativeTolerance"/> of the impedance before) read as two lumped spots, one at each end of the
+    /// cluster, sharing its reflection area equally. Two equal spots a rise or two apart (the two connectors of a patch
+    /// lead, two kinks) blur into a rise and a fall, often with a spot between, that the fit takes for a short section;
+    /// the spots have no more parameters, and the criterion decides.
+    /// </summary>
+    internal static List<RunModel> ClusterAsSpots(RunModel m, int first, double effectiveRiseSeconds)
+    {
+        var candidates = new List<RunModel>();
+        double z = RunModelBuilder.ImpedanceBefore(m, first);
+        for (int last = first + 1; last < Math.Min(m.Events.Count, first + SpotClusterMaximumEvents); last++)
+        {
+            var cluster = m.Events.Skip(first).Take(last - first + 1).ToList();
+            if (cluster.Any(e => e.Element is not (RunModelElement.Boundary or RunModelElement.ShuntCapacitor or RunModelElement.SeriesInductor))) break;
+            if (cluster.All(e => IsReactive(e.Element))) continue;
+            double span = cluster[^1].RoundTripSeconds - cluster[0].RoundTripSeconds;
+            if (!(span > 0) || span > SpotClusterMaximumRiseTimes * effectiveRiseSeconds) break;
+            if (Math.Abs(RunModelBuilder.ImpedanceBefore(m, last + 1) / z - 1) > ReturnRelativeTolerance) continue;
+            double inductance = EquivalentSeriesInductance(m, first, last, z);
+            if (!double.IsFinite(inductance) || inductance == 0) continue;
+            var spot = inductance > 0
+                ? new RunModelEvent(RunModelElement.SeriesInductor, 0, inductance / 2)
+                : new RunModelEvent(RunModelElement.ShuntCapacitor, 0, -inductance / (z * z) / 2);
+            // The spots delay what lies beyond by their time constants (see SpotDelaySeconds); the cluster's own spots
+            // already did.
+            double delay = 2 * (2 * SpotDelaySeconds(spot, z) - cluster.Where(e => IsReactive(e.Element)).Sum(e => SpotDelaySeconds(e, z)));
+            var list = m.Events.Select((e, k) => k > last ? e with { RoundTripSeconds = e.RoundTripSeconds - delay } : e).ToList();
+            list.RemoveRange(first, last - first + 1);
+            list.InsertRange(first, [spot with { RoundTripSeconds = cluster[0].RoundTripSeconds }, spot with { RoundTripSeconds = cluster[^1].RoundTripSeconds }]);
+            candidates.Add(m.WithEvents(list));
+        }
+        return candidates;
+    }
+
+    /// <summary>
+    /// The series L with the same low-frequency reflection as events <paramref name="first"/>..<paramref name="last"/>
+    /// on a line of <paramref name="z"/> Ω, H (negative for a net shunt C, which reflects like L = −Z²·C): each section
+    /// between them counts (τ/2)(Z₁ − Z²/Z₁) (see <see cref="SectionImpedance"/>), each series L itself and each shunt C
+    /// as −Z²·C.
+    /// </summary>
+    private static double EquivalentSeriesInductance(RunModel m, int first, int last, double z)
+    {
+        double total = 0;
+        for (int k = first; k <= last; k++)
+        {
+            var e = m.Events[k];
+            total += e.Element switch
+            {
+                RunModelElement.SeriesInductor => e.Value,
+                RunModelElement.ShuntCapacitor => -z * z * e.Value,
+                _ => 0,
+            };
+            if (k < last)
+            {
+                double zSection = RunModelBuilder.ImpedanceBefore(m, k + 1);
+                double tau = m.Events[k + 1].RoundTripSeconds - e.RoundTripSeconds;
+                total += tau / 2 * (zSection - z * z / zSection);
+            }
+        }
+        return total;
+    }
+
     /// <summary>
     /// The one-way delay a shunt C or series L on a line of <paramref name="z"/> Ω adds to what passes it, s: the
     /// low-frequency group delay of its transmission T = 1/(1 + jωτ), τ = Z·C/2 or L/(2Z).
