@@ -35,7 +35,10 @@ public static class TraceDiagnosis
             Console.Error.WriteLine($"diagnose: {e.Message}");
             return 2;
         }
-        var options = new LocateOptions { VelocityFactor = vf, ImpedanceOhms = z0 };
+        // Optional: a built-in cable type whose loss is told, and the instrument's source impedance, Ω.
+        var loss = args.Length > 3 ? CableFault.Cables.CableLibrary.BuiltIn.Get(args[3]).Medium.Loss : null;
+        double source = args.Length > 4 && double.TryParse(args[4], NumberStyles.Float, CultureInfo.InvariantCulture, out double zs) ? zs : 50;
+        var options = new LocateOptions { VelocityFactor = vf, ImpedanceOhms = z0, Loss = loss, SourceImpedanceOhms = source };
         // The detector's candidates, the selection's starting point.
         var characteristics = TraceConditioner.Characterise(trace);
         var aligned = TraceConditioner.Align(trace, characteristics);
