@@ -78,6 +78,94 @@ internal static class ModelSelection
 
     internal static Result Select(RunModel initial, FitData data, double effectiveRiseSeconds, CancellationToken cancellation = default)
     {
+        var fromDetector = SelectFrom(initial, data, effectiveRiseSeconds, cancellation);
+        // Two strong reflectors a few rises apart ring between them, and the detector reports the ladder of echoes as a
+        // row of events that the fit then bends to compensate for readings of the wrong kind (a leak read as a drop
+        // makes echoes of the wrong sign); from there no single move reaches the right model. A second selection from
+        // the detector's events without that ladder (see WithoutEchoLadder) reaches it in a few moves, and the better
+        // of the two, by the criterion, is the reading.
+        if (WithoutEchoLadder(initial, effectiveRiseSeconds) is not { } cleaned) return fromDetector;
+        // What the ladder's reflectors are is the question the ladder answers: with the echoes gone the few events left
+        // are read every way a boundary can be (itself or its resistor; the last also an end), and the best first fit
+        // starts the selection.
+        var readings = KindReadings(cleaned);
+        double variance = SampleVariance(data, initial);
+        var probes = new ModelFit[readings.Count];
+        ForEachInParallel(readings.Count, k => probes[k] = ModelFitter.Fit(readings[k], data, variance, maximumIterations: FirstFitProbeIterations,
+            cancellation: cancellation), cancellation);
+        var start = probes.MinBy(f => Criterion(f, data, variance))!.Model;
+        DebugTrace?.Invoke($"echo-ladder start {Describe(cleaned)}; best of {readings.Count} readings {Describe(start)}");
+        var fromCleaned = SelectFrom(start, data, effectiveRiseSeconds, cancellation);
+        DebugTrace?.Invoke($"echo-ladder selection: bic {fromCleaned.Bic:0.0} against {fromDetector.Bic:0.0}");
+        var better = fromCleaned.Bic < fromDetector.Bic - EvidenceMargin ? fromCleaned : fromDetector;
+        return better with { Trials = fromDetector.Trials + fromCleaned.Trials };
+    }
+
+    /// <summary>Fewest events an echo ladder must hold for a second selection from the events without it.</summary>
+    private const int MinimumLadderEchoes = 3;
+
+    /// <summary>Least |ρ| of an event that the ladder's echoes bounce off.</summary>
+    private const double LadderReflectorReflection = 0.2;
+
+    /// <summary>
+    /// <paramref name="initial"/> without the events at the echo times of its stronger events, or null when fewer than
+    /// <see cref="MinimumLadderEchoes"/> are: in time order, an event k is an echo when t_k = t_a + t_b − t_c within
+    /// half an effective rise, with c a kept event of |ρ| ≥ <see cref="LadderReflectorReflection"/> earlier than a and
+    /// b, and a and b kept events or echoes themselves (a higher-order bounce). The wave goes out to a, back to c, out
+    /// again to b.
+    /// </summary>
+    private static RunModel? WithoutEchoLadder(RunModel initial, double effectiveRiseSeconds)
+    {
+        double tolerance = 0.5 * effectiveRiseSeconds;
+        var events = initial.Events;
+        var kept = new List<int>();
+        var seen = new List<int>();
+        int echoes = 0;
+        for (int k = 0; k < events.Count; k++)
+        {
+            double tk = events[k].RoundTripSeconds;
+            bool echo = !events[k].EndsRun && kept.Any(c => Math.Abs(LocalReflection(initial, c)) >= LadderReflectorReflection
+                && seen.Any(a => events[a].RoundTripSeconds > events[c].RoundTripSeconds
+                    && seen.Any(b => b >= a && Math.Abs(tk - (events[a].RoundTripSeconds + events[b].RoundTripSeconds - events[c].RoundTripSeconds)) < tolerance)));
+            if (echo) echoes++;
+            else kept.Add(k);
+            seen.Add(k);
+        }
+        return echoes >= MinimumLadderEchoes ? initial.WithEvents(kept.Select(k => events[k])) : null;
+    }
+
+    /// <summary>Most boundaries of a ladder's remaining events read every way (2ⁿ⁻¹·3 readings).</summary>
+    private const int MaximumReadingBoundaries = 4;
+
+    /// <summary>Every reading of <paramref name="m"/>'s first <see cref="MaximumReadingBoundaries"/> boundaries: each as
+    /// itself or as its resistor (see <see cref="WithResistor"/>), and a last event that is a boundary also as an open or
+    /// a short by its sign.</summary>
+    private static List<RunModel> KindReadings(RunModel m)
+    {
+        var boundaries = Enumerable.Range(0, m.Events.Count).Where(i => m.Events[i].Element == RunModelElement.Boundary)
+            .Take(MaximumReadingBoundaries).ToList();
+        var readings = new List<RunModel>();
+        for (int mask = 0; mask < 1 << boundaries.Count; mask++)
+        {
+            var reading = m;
+            for (int b = 0; b < boundaries.Count; b++)
+                if ((mask & (1 << b)) != 0) reading = reading.WithEvents(WithResistor(reading.Events, reading, boundaries[b]));
+            readings.Add(reading);
+            int last = m.Events.Count - 1;
+            if (boundaries.Count > 0 && boundaries[^1] == last && (mask & (1 << (boundaries.Count - 1))) == 0)
+            {
+                var end = reading.Events[last] with
+                {
+                    Element = LocalReflection(reading, last) > 0 ? RunModelElement.Open : RunModelElement.Short, Value = double.NaN,
+                };
+                readings.Add(reading.WithEvents(reading.Events.Take(last).Append(end)));
+            }
+        }
+        return readings;
+    }
+
+    private static Result SelectFrom(RunModel initial, FitData data, double effectiveRiseSeconds, CancellationToken cancellation)
+    {
         double variance = SampleVariance(data, initial);
         double logN = LogSampleCount(data);
         double Bic(ModelFit f) => Criterion(f, data, variance);
@@ -719,14 +807,13 @@ internal static class ModelSelection
     /// <summary>
     /// <paramref name="events"/> with boundary <paramref name="index"/> of <paramref name="m"/> as its resistor (see
     /// <see cref="Resistive"/>). Behind a resistor the line is Z_prev again rather than the boundary's Z, so every later
-    /// boundary's impedance is scaled by Z_prev/Z: each keeps its reflection coefficient, and the trial starts from the
-    /// same later trace instead of from a run whose every later step has changed.
+    /// impedance-like value is scaled by Z_prev/Z: each later event keeps its reflection coefficient, and the trial starts
+    /// from the same later trace instead of from a run whose every later step has changed.
     /// </summary>
     private static List<RunModelEvent> WithResistor(IReadOnlyList<RunModelEvent> events, RunModel m, int index)
     {
-        // The line beyond is back at the impedance before: every later impedance-like value scales with it, so each later
-        // event keeps its local reflection (a series or shunt R, a series L and a boundary scale with Z, a shunt C
-        // against it; ρ of each depends on its value over the line's Z alone).
+        // A series or shunt R, a series L and a boundary scale with Z, a shunt C against it: ρ of each depends on its
+        // value over the line's Z alone.
         double scale = RunModelBuilder.ImpedanceBefore(m, index) / m.Events[index].Value;
         var list = events.Select((e, k) => k <= index ? e : e.Element switch
         {
