@@ -78,16 +78,28 @@ internal static class ModelSelection
 
     internal static Result Select(RunModel initial, FitData data, double effectiveRiseSeconds, CancellationToken cancellation = default)
     {
-        var fromDetector = SelectFrom(initial, data, effectiveRiseSeconds, cancellation);
         // Two strong reflectors a few rises apart ring between them, and the detector reports the ladder of echoes as a
         // row of events that the fit then bends to compensate for readings of the wrong kind (a leak read as a drop
         // makes echoes of the wrong sign); from there no single move reaches the right model. A second selection from
         // the detector's events without that ladder (see WithoutEchoLadder) reaches it in a few moves, and the better
         // of the two, by the criterion, is the reading.
-        if (WithoutEchoLadder(initial, effectiveRiseSeconds) is not { } cleaned) return fromDetector;
-        // What the ladder's reflectors are is the question the ladder answers: with the echoes gone the few events left
-        // are read every way a boundary can be (itself or its resistor; the last also an end), and the best first fit
-        // starts the selection.
+        if (WithoutEchoLadder(initial, effectiveRiseSeconds) is not { } cleaned) return SelectFrom(initial, data, effectiveRiseSeconds, cancellation);
+        // The two selections are independent: side by side (each leaves a core idle much of the time).
+        var results = new Result[2];
+        ForEachInParallel(2, k => results[k] = k == 0
+            ? SelectFrom(initial, data, effectiveRiseSeconds, cancellation)
+            : SelectFromLadder(initial, cleaned, data, effectiveRiseSeconds, cancellation), cancellation);
+        var (fromDetector, fromCleaned) = (results[0], results[1]);
+        DebugTrace?.Invoke($"echo-ladder selection: bic {fromCleaned.Bic:0.0} against {fromDetector.Bic:0.0}");
+        var better = fromCleaned.Bic < fromDetector.Bic - EvidenceMargin ? fromCleaned : fromDetector;
+        return better with { Trials = fromDetector.Trials + fromCleaned.Trials };
+    }
+
+    /// <summary>The selection from <paramref name="cleaned"/>, the detector's events without their echo ladder: what the
+    /// ladder's reflectors are is the question the ladder answers, so the few events left are read every way (each
+    /// boundary itself or its resistor; the last also an end) and the best first fit starts the selection.</summary>
+    private static Result SelectFromLadder(RunModel initial, RunModel cleaned, FitData data, double effectiveRiseSeconds, CancellationToken cancellation)
+    {
         var readings = KindReadings(cleaned);
         double variance = SampleVariance(data, initial);
         var probes = new ModelFit[readings.Count];
@@ -95,10 +107,7 @@ internal static class ModelSelection
             cancellation: cancellation), cancellation);
         var start = probes.MinBy(f => Criterion(f, data, variance))!.Model;
         DebugTrace?.Invoke($"echo-ladder start {Describe(cleaned)}; best of {readings.Count} readings {Describe(start)}");
-        var fromCleaned = SelectFrom(start, data, effectiveRiseSeconds, cancellation);
-        DebugTrace?.Invoke($"echo-ladder selection: bic {fromCleaned.Bic:0.0} against {fromDetector.Bic:0.0}");
-        var better = fromCleaned.Bic < fromDetector.Bic - EvidenceMargin ? fromCleaned : fromDetector;
-        return better with { Trials = fromDetector.Trials + fromCleaned.Trials };
+        return SelectFrom(start, data, effectiveRiseSeconds, cancellation);
     }
 
     /// <summary>Fewest events an echo ladder must hold for a second selection from the events without it.</summary>
