@@ -25,10 +25,7 @@ internal static class LossEstimation
         var lossyStart = initial.WithContext(initial.Context with { Loss = RunModelContext.EstimateStart, EstimateLoss = true });
         var losslessStart = initial.WithContext(initial.Context with { Loss = null, EstimateLoss = false });
         double variance = ModelSelection.SampleVariance(data, initial);
-        // The two readings are independent: fitted side by side (the machines have two cores).
-        var fits = new ModelFit[2];
-        ModelSelection.ForEachInParallel(2, k => fits[k] = ModelFitter.Fit(k == 0 ? lossyStart : losslessStart, data, variance,
-            cancellation: cancellation), cancellation);
+        var fits = ModelFitter.FitEach([lossyStart, losslessStart], data, variance, cancellation: cancellation);
         var (lossy, lossless) = (fits[0], fits[1]);
         double lossyBic = ModelSelection.Criterion(lossy, data, variance);
         double losslessBic = ModelSelection.Criterion(lossless, data, variance);

@@ -24,6 +24,17 @@ internal static class ModelFitter
     /// <summary>Fresh starts with a finite-difference Jacobian after LM stalled on a secant one.</summary>
     private const int MaximumSecantRestarts = 2;
 
+    /// <summary>Fits each of <paramref name="starts"/> with every parameter free, side by side (they are independent), in
+    /// their order.</summary>
+    internal static ModelFit[] FitEach(IReadOnlyList<RunModel> starts, FitData data, double sampleVarianceVolts2,
+        int maximumIterations = DefaultMaximumIterations, CancellationToken cancellation = default)
+    {
+        var fits = new ModelFit[starts.Count];
+        ModelSelection.ForEachInParallel(starts.Count, k => fits[k] = Fit(starts[k], data, sampleVarianceVolts2,
+            maximumIterations: maximumIterations, cancellation: cancellation), cancellation);
+        return fits;
+    }
+
     /// <summary>Fits all parameters, or those marked free in <paramref name="free"/>.</summary>
     internal static ModelFit Fit(RunModel initial, FitData data, double sampleVarianceVolts2, bool[]? free = null,
         int maximumIterations = DefaultMaximumIterations, CancellationToken cancellation = default)

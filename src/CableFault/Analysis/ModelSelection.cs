@@ -102,9 +102,7 @@ internal static class ModelSelection
     {
         var readings = KindReadings(cleaned);
         double variance = SampleVariance(data, initial);
-        var probes = new ModelFit[readings.Count];
-        ForEachInParallel(readings.Count, k => probes[k] = ModelFitter.Fit(readings[k], data, variance, maximumIterations: FirstFitProbeIterations,
-            cancellation: cancellation), cancellation);
+        var probes = ModelFitter.FitEach(readings, data, variance, FirstFitProbeIterations, cancellation);
         var start = probes.MinBy(f => Criterion(f, data, variance))!.Model;
         DebugTrace?.Invoke($"echo-ladder start {Describe(cleaned)}; best of {readings.Count} readings {Describe(start)}");
         return SelectFrom(start, data, effectiveRiseSeconds, cancellation);
@@ -192,10 +190,8 @@ internal static class ModelSelection
         // from a trace that only resembles ringing) differs by far less (the 75 Ω drop speed trace: 48×; a 0.3 m
         // branch: 4 000×; benchmark run 13, a section and its echoes taken for ringing: 1.1×).
         var ringingTap = RunModelBuilder.RingingTapStart(initial, effectiveRiseSeconds);
-        var starts = ringingTap is null ? [initial] : new[] { initial, ringingTap };
-        var firstFits = new ModelFit[starts.Length];
-        ForEachInParallel(starts.Length, k => firstFits[k] = ModelFitter.Fit(starts[k], data, variance, maximumIterations: FirstFitProbeIterations,
-            cancellation: cancellation), cancellation);
+        var firstFits = ModelFitter.FitEach(ringingTap is null ? [initial] : [initial, ringingTap], data, variance, FirstFitProbeIterations,
+            cancellation);
         var best = firstFits[0];
         double bestBic = Bic(best);
         if (ringingTap is not null)
