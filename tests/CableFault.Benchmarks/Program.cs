@@ -7,7 +7,7 @@ using CableFault.Benchmarks;
 //        (whole-process cablefault simulate vs ngspice; --native times a Native AOT build too, made with
 //         dotnet publish src/CableFault.Cli -c Release -r linux-x64 -p:PublishAot=true -o out/native)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- accuracy [--cases N] [--out FILE]   (locate accuracy, Accuracy/)
-//   dotnet run -c Release --project tests/CableFault.Benchmarks -- diagnose FILE VF Z0 (locate one trace file, every hypothesis shown)
+//   dotnet run -c Release --project tests/CableFault.Benchmarks -- diagnose FILE VF Z0 [CABLE [SOURCE_OHMS]] (locate one trace file, every hypothesis shown)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- batch [COUNT] (batch locate over COUNT traces, 1 vs 2 workers)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- history [COUNT] (run history: list and check with COUNT stored traces, default 10 000)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- --filter '*'   (any BenchmarkDotNet arguments)

@@ -6,7 +6,7 @@ using CableFault.Traces;
 namespace CableFault.Benchmarks.Accuracy;
 
 /// <summary>
-/// `diagnose FILE VF Z0`: locate one trace file with every hypothesis the model selection tries written out (the
+/// `diagnose FILE VF Z0 [CABLE [SOURCE_OHMS]]`: locate one trace file with every hypothesis the model selection tries written out (the
 /// <c>--only</c> diagnosis of the accuracy benchmark, for a trace that is not one of its cases).
 /// </summary>
 public static class TraceDiagnosis
@@ -15,7 +15,7 @@ public static class TraceDiagnosis
     {
         if (args.Length < 3)
         {
-            Console.Error.WriteLine("diagnose: use diagnose FILE VF Z0");
+            Console.Error.WriteLine("diagnose: use diagnose FILE VF Z0 [CABLE [SOURCE_OHMS]]");
             return 2;
         }
         if (!double.TryParse(args[1], NumberStyles.Float, CultureInfo.InvariantCulture, out double vf)
@@ -36,8 +36,19 @@ public static class TraceDiagnosis
             return 2;
         }
         // Optional: a built-in cable type whose loss is told, and the instrument's source impedance, Ω.
-        var loss = args.Length > 3 ? CableFault.Cables.CableLibrary.BuiltIn.Get(args[3]).Medium.Loss : null;
-        double source = args.Length > 4 && double.TryParse(args[4], NumberStyles.Float, CultureInfo.InvariantCulture, out double zs) ? zs : 50;
+        var cable = args.Length > 3 ? CableFault.Cables.CableLibrary.BuiltIn.Find(args[3]) : null;
+        if (args.Length > 3 && cable is null)
+        {
+            Console.Error.WriteLine($"diagnose: unknown cable type '{args[3]}'; `cablefault cables` lists the built-in ones");
+            return 2;
+        }
+        double source = 50;
+        if (args.Length > 4 && !(double.TryParse(args[4], NumberStyles.Float, CultureInfo.InvariantCulture, out source) && source > 0))
+        {
+            Console.Error.WriteLine($"diagnose: source impedance '{args[4]}' must be a positive number of ohms, e.g. 50");
+            return 2;
+        }
+        var loss = cable?.Medium.Loss;
         var options = new LocateOptions { VelocityFactor = vf, ImpedanceOhms = z0, Loss = loss, SourceImpedanceOhms = source };
         // The detector's candidates, the selection's starting point.
         var characteristics = TraceConditioner.Characterise(trace);
