@@ -25,6 +25,11 @@ internal static class CoincidentEvents
         CancellationToken cancellation)
     {
         double Bic(ModelFit f) => ModelSelection.Criterion(f, data, variance);
+        if (AsTermination(best.Model, effectiveRiseSeconds) is { } terminated)
+        {
+            best = ModelFitter.Fit(terminated, data, variance, cancellation: cancellation);
+            trials++;
+        }
         double bestBic = Bic(best);
         for (int guard = 0; guard < 8; guard++)
         {
@@ -52,5 +57,22 @@ internal static class CoincidentEvents
             (best, bestBic) = (winner, winnerBic);
         }
         return best;
+    }
+
+    /// <summary>
+    /// The model with a resistor right before its end (a series R and a short, a shunt R and an open, at one place) as the
+    /// one resistive end it is: R to ground through a line of zero length either way, the last event a boundary to R
+    /// (see <see cref="RunModel"/>: a last boundary is a matched line of that impedance). Null when there is none.
+    /// </summary>
+    internal static RunModel? AsTermination(RunModel m, double effectiveRiseSeconds)
+    {
+        int n = m.Events.Count;
+        if (n < 2) return null;
+        RunModelEvent resistor = m.Events[n - 2], end = m.Events[n - 1];
+        bool pair = (resistor.Element, end.Element) is (RunModelElement.SeriesResistor, RunModelElement.Short)
+            or (RunModelElement.ShuntResistor, RunModelElement.Open);
+        if (!pair || end.RoundTripSeconds - resistor.RoundTripSeconds >= CoincidenceRiseFraction * effectiveRiseSeconds) return null;
+        var termination = new RunModelEvent(RunModelElement.Boundary, end.RoundTripSeconds, resistor.Value);
+        return m.WithEvents(m.Events.Take(n - 2).Append(termination));
     }
 }
