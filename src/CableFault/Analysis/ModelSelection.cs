@@ -284,8 +284,15 @@ internal static class ModelSelection
         // per candidate by its parameter count against the current model's.
         bool TryBest(IReadOnlyList<RunModel> candidates, bool? simpler, params int[] focus)
         {
+            var current = best.Model;
+            return TryBestJudged(candidates, c => simpler ?? c.ParameterCount < current.ParameterCount, focus);
+        }
+
+        // As TryBest, with isSimpler telling per candidate whether it need only not lose.
+        bool TryBestJudged(IReadOnlyList<RunModel> candidates, Func<RunModel, bool> isSimpler, params int[] focus)
+        {
             var saved = (best, bestBic);
-            bool IsSimpler(RunModel candidate) => simpler ?? candidate.ParameterCount < saved.best.Model.ParameterCount;
+            bool IsSimpler(RunModel candidate) => isSimpler(candidate);
             var admitted = candidates.Select(c => Admit(c, focus)).OfType<Trial>().ToList();
             var results = new (ModelFit Fit, double Bic)[admitted.Count];
             ForEachInParallel(admitted.Count, k => results[k] = RunTrial(admitted[k], saved.bestBic), cancellation);
@@ -408,6 +415,7 @@ internal static class ModelSelection
                 {
                     if (m.Events[j].Element != RunModelElement.Boundary) continue;
                     variants.Add(WithResistor(truncated, m, j));
+                    if (WithCompound(truncated, m, j) is { } compound) variants.Add(compound);
                 }
                 if (TryBest(variants.Select(v => m.WithEvents(v)).ToList(), simpler: true, 0)) return;
             }
@@ -426,12 +434,16 @@ internal static class ModelSelection
             {
                 var m = best.Model;
                 // A narrow pair of boundaries that returns may be a spot (or, if capacitive, a tap) the fit bent into an
-                // extreme section; fewer parameters, so it need only not lose.
+                // extreme section; fewer parameters, so it need only not lose. One far narrower than the rise that does
+                // not return is a spot and a step at one place (a connector where two cables meet): as many parameters,
+                // but a "section" the data cannot resolve is no reading (see MinimumSectionRiseTimes), so it too need
+                // only not lose.
                 // Or a cluster may be two spots, one at each end (as many parameters as two boundaries, so those must
                 // win by the margin; fewer than a cluster of three).
                 var spots = ReactiveSections.SpotCandidates(m, i, effectiveRiseSeconds);
+                var narrowPair = new HashSet<RunModel>(spots);
                 spots.AddRange(ReactiveSections.ClusterAsSpots(m, i, effectiveRiseSeconds));
-                if (spots.Count > 0 && TryBest(spots, simpler: null, i)) continue;
+                if (spots.Count > 0 && TryBestJudged(spots, c => narrowPair.Contains(c) || c.ParameterCount < m.ParameterCount, i)) continue;
                 if (!ReactiveSections.IsReactive(m.Events[i].Element)) { i++; continue; }
                 int last = ReactiveSections.ClusterEnd(m, i, effectiveRiseSeconds);
                 double span = m.Events[last].RoundTripSeconds - m.Events[i].RoundTripSeconds;
@@ -483,6 +495,7 @@ internal static class ModelSelection
                         var resistive = WithResistor(m.Events, m, i);
                         variants.Add(m.WithEvents(resistive));
                         if (WithoutEchoes(resistive, i, effectiveRiseSeconds) is { } cleared) variants.Add(m.WithEvents(cleared));
+                        if (WithCompound(m.Events, m, i) is { } compound) variants.Add(m.WithEvents(compound));
                     }
                     if (rho > -0.6 && rho < -0.1)
                     {
@@ -516,6 +529,7 @@ internal static class ModelSelection
                     var resistive = WithResistor(m.Events, m, i);
                     var variants = new List<RunModel> { m.WithEvents(resistive) };
                     if (WithoutEchoes(resistive, i, effectiveRiseSeconds) is { } cleared) variants.Add(m.WithEvents(cleared));
+                    if (WithCompound(m.Events, m, i) is { } compound) variants.Add(m.WithEvents(compound));
                     TryBest(variants, simpler: null, i);
                 }
             }
@@ -817,17 +831,57 @@ internal static class ModelSelection
     /// </summary>
     private static List<RunModelEvent> WithResistor(IReadOnlyList<RunModelEvent> events, RunModel m, int index)
     {
-        // A series or shunt R, a series L and a boundary scale with Z, a shunt C against it: ρ of each depends on its
-        // value over the line's Z alone.
-        double scale = RunModelBuilder.ImpedanceBefore(m, index) / m.Events[index].Value;
-        var list = events.Select((e, k) => k <= index ? e : e.Element switch
+        var list = ScaledAfter(events, index, RunModelBuilder.ImpedanceBefore(m, index) / m.Events[index].Value);
+        list[index] = Resistive(m, index);
+        return list;
+    }
+
+    /// <summary><paramref name="events"/> with every event after <paramref name="index"/> scaled to a line of
+    /// <paramref name="scale"/> times the impedance: a series or shunt R, a series L and a boundary scale with Z, a shunt
+    /// C against it (ρ of each depends on its value over the line's Z alone).</summary>
+    private static List<RunModelEvent> ScaledAfter(IReadOnlyList<RunModelEvent> events, int index, double scale) =>
+        events.Select((e, k) => k <= index ? e : e.Element switch
         {
             RunModelElement.Boundary or RunModelElement.SeriesResistor or RunModelElement.ShuntResistor or RunModelElement.SeriesInductor
                 => e with { Value = e.Value * scale },
             RunModelElement.ShuntCapacitor => e with { Value = e.Value / scale },
             _ => e,
         }).ToList();
-        list[index] = Resistive(m, index);
+
+    /// <summary>Least relative distance of the line before a boundary from the run's own impedance for the boundary to be
+    /// read as a return to it with a resistor (see <see cref="WithCompound"/>).</summary>
+    private const double CompoundLineDeviation = 0.05;
+
+    /// <summary>|ρ| of a boundary that barely changes the line (about 2 % in impedance).</summary>
+    private const double NegligibleReflection = 0.01;
+
+    /// <summary>
+    /// Boundary <paramref name="index"/> of <paramref name="m"/> as a return to the run's own impedance Z₀ with a resistor
+    /// at the same place, or null when that reading does not apply: a leak or a bad joint right where a section of other
+    /// cable ends (water in the splice that joins them) reflects at first like a single step to Z‖R or Z₀ + R, and only
+    /// the levels later in the trace (an end's echo returning through it) tell the two apart. Applies where a section
+    /// ends: the event before is a boundary from a line within <see cref="CompoundLineDeviation"/> of Z₀, the line before
+    /// this one differs from Z₀ by more than that (otherwise it is <see cref="WithResistor"/>), and the step lands on the
+    /// resistor's side of Z₀: below it a shunt R = Z₀·Z/(Z₀ − Z), above it a series R = Z − Z₀. Later events are scaled
+    /// to the line of Z₀ (see <see cref="ScaledAfter"/>). Boundaries of |ρ| below <see cref="NegligibleReflection"/>
+    /// between the two do not count.
+    /// </summary>
+    private static List<RunModelEvent>? WithCompound(IReadOnlyList<RunModelEvent> events, RunModel m, int index)
+    {
+        var e = m.Events[index];
+        // The section's start: the boundary before, passing over any that barely change the line (a fit's leftovers).
+        int start = index - 1;
+        while (start >= 0 && m.Events[start].Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, start)) < NegligibleReflection) start--;
+        if (e.Element != RunModelElement.Boundary || start < 0 || m.Events[start].Element != RunModelElement.Boundary) return null;
+        double z0 = m.Context.ImpedanceOhms, zPrev = RunModelBuilder.ImpedanceBefore(m, index), z = e.Value;
+        if (Math.Abs(RunModelBuilder.ImpedanceBefore(m, start) - z0) > CompoundLineDeviation * z0) return null;
+        if (Math.Abs(zPrev - z0) < CompoundLineDeviation * z0 || Math.Abs(z - z0) < 0.01 * z0) return null;
+        var resistor = z < z0
+            ? e with { Element = RunModelElement.ShuntResistor, Value = z0 * z / (z0 - z) }
+            : e with { Element = RunModelElement.SeriesResistor, Value = z - z0 };
+        var list = ScaledAfter(events, index, z0 / z);
+        list[index] = e with { Value = z0 };
+        list.Insert(index + 1, resistor);
         return list;
     }
 

@@ -101,10 +101,14 @@ internal static class ReactiveSections
     /// impedance before them, as the one lumped spot of the same reflection area (series L = (τ/2)(Z₁ − Z²/Z₁) for a higher
     /// Z₁, shunt C = (τ/2)(1/Z₁ − Z₁/Z²) for a lower one) at their centre, the later events moved earlier by the delay
     /// the spot adds. A fit that cannot place a few-rise-time excursion often makes it a narrow pair of extreme
-    /// boundaries (ρ near ±1), which would read as an open or a short in the middle of a run. Null when the pair does
-    /// not qualify.
+    /// boundaries (ρ near ±1), which would read as an open or a short in the middle of a run. A pair that does not
+    /// return, overshoots both lines and is at most <paramref name="maximumStepSeconds"/> wide is the spot and a step at one place (a connector
+    /// where two cables meet): the spot of the section's excess reactance at the junction of Z and Z₂,
+    /// L = (τ/2)(Z₁ − Z·Z₂/Z₁) (a short line of Z₁ is series L (τ/2)Z₁ and shunt C (τ/2)/Z₁, and a shunt C at the junction
+    /// reflects like a series L of −Z·Z₂·C, to first order in ωτ), followed by the step to Z₂. Null when the pair does not
+    /// qualify.
     /// </summary>
-    internal static RunModel? ToSpot(RunModel m, int first, double maximumSeconds)
+    internal static RunModel? ToSpot(RunModel m, int first, double maximumSeconds, double maximumStepSeconds = 0)
     {
         if (first + 1 >= m.Events.Count) return null;
         RunModelEvent a = m.Events[first], b = m.Events[first + 1];
@@ -112,7 +116,13 @@ internal static class ReactiveSections
         double tau = b.RoundTripSeconds - a.RoundTripSeconds;
         if (!(tau > 0) || tau > maximumSeconds) return null;
         double z = RunModelBuilder.ImpedanceBefore(m, first), z1 = a.Value;
-        if (Math.Abs(b.Value / z - 1) > ReturnRelativeTolerance || z1 == z) return null;
+        if (z1 == z) return null;
+        if (Math.Abs(b.Value / z - 1) > ReturnRelativeTolerance)
+        {
+            // Only an excursion beyond both lines is a spot: a staircase (Z₁ between Z and Z₂) is two steps.
+            bool overshoots = z1 > Math.Max(z, b.Value) || z1 < Math.Min(z, b.Value);
+            return tau <= maximumStepSeconds && overshoots ? SpotAndStep(m, first, z, z1, b.Value, tau) : null;
+        }
         var spot = z1 > z
             ? new RunModelEvent(RunModelElement.SeriesInductor, (a.RoundTripSeconds + b.RoundTripSeconds) / 2, tau / 2 * (z1 - z * z / z1))
             : new RunModelEvent(RunModelElement.ShuntCapacitor, (a.RoundTripSeconds + b.RoundTripSeconds) / 2, tau / 2 * (1 / z1 - z1 / (z * z)));
@@ -123,6 +133,24 @@ internal static class ReactiveSections
         list.Insert(first, spot);
         // The line after the pair keeps the impedance the second boundary set only if it differs from Z; a spot returns
         // to Z exactly, so a later boundary's impedance is unchanged and the small difference is left to the fit.
+        return m.WithEvents(list);
+    }
+
+    /// <summary>Boundaries <paramref name="first"/> (to <paramref name="z1"/>) and the next (to <paramref name="z2"/>),
+    /// <paramref name="tauSeconds"/> apart on a line of <paramref name="z"/>, as a spot and a step at their centre (see
+    /// <see cref="ToSpot"/>); null when the spot vanishes. The later events keep their times: a spot this narrow delays them
+    /// by a small part of the rise, left to the fit.</summary>
+    private static RunModel? SpotAndStep(RunModel m, int first, double z, double z1, double z2, double tauSeconds)
+    {
+        double inductance = tauSeconds / 2 * (z1 - z * z2 / z1);
+        if (!double.IsFinite(inductance) || inductance == 0) return null;
+        double centre = (m.Events[first].RoundTripSeconds + m.Events[first + 1].RoundTripSeconds) / 2;
+        var spot = inductance > 0
+            ? new RunModelEvent(RunModelElement.SeriesInductor, centre, inductance)
+            : new RunModelEvent(RunModelElement.ShuntCapacitor, centre, -inductance / (z * z2));
+        var list = m.Events.ToList();
+        list[first] = spot;
+        list[first + 1] = m.Events[first + 1] with { RoundTripSeconds = centre };
         return m.WithEvents(list);
     }
 
@@ -204,6 +232,10 @@ internal static class ReactiveSections
     internal static double SpotDelaySeconds(RunModelEvent spot, double z) =>
         spot.Element == RunModelElement.ShuntCapacitor ? z * spot.Value / 2 : spot.Value / (2 * z);
 
+    /// <summary>Widest pair of boundaries that do not return, in effective rise times, tried as a spot and a step: far
+    /// below the resolution, where the pair cannot be a section the data resolve.</summary>
+    internal const double StepSpotRiseTimes = 0.5;
+
     /// <summary>
     /// What a narrow pair of boundaries at <paramref name="first"/> may stand for (see <see cref="ToSpot"/>, at most two
     /// effective rises wide): the spot, and, for a capacitive one, the tap of the same admittance (see
@@ -211,7 +243,7 @@ internal static class ReactiveSections
     /// </summary>
     internal static List<RunModel> SpotCandidates(RunModel m, int first, double effectiveRiseSeconds)
     {
-        if (ToSpot(m, first, 2 * effectiveRiseSeconds) is not RunModel spot) return [];
+        if (ToSpot(m, first, 2 * effectiveRiseSeconds, StepSpotRiseTimes * effectiveRiseSeconds) is not RunModel spot) return [];
         var candidates = new List<RunModel> { spot };
         if (AsTap(spot, first, effectiveRiseSeconds) is RunModel tap) candidates.Add(tap);
         return candidates;

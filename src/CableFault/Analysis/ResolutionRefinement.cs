@@ -112,6 +112,34 @@ internal static class ResolutionRefinement
                 break;
             }
         }
+        // A connector where two cables meet is a small L or C right at the change of impedance; the coarse look sees only
+        // the step (slightly moved), and the sharper data leave a residual there that no single boundary removes.
+        for (int k = 0; k < best.Model.Events.Count; k++)
+        {
+            var m = best.Model;
+            // Not the last event: a boundary there is the run's resistive end, modelled as a matched line of that
+            // impedance, whose small difference from a resistor on a lossy cable a spot would only soak up.
+            if (m.Events[k].Element != RunModelElement.Boundary || k == m.Events.Count - 1) continue;
+            double excess = ModelSelection.LocalExcess(best, fine, variance, m.TimeOffsetSeconds + m.Events[k].RoundTripSeconds, fineRiseSeconds);
+            if (excess < 2 * logN + ModelSelection.EvidenceMargin) continue;
+            RunModelFit? winner = null;
+            foreach (var candidate in SpotsAtBoundary(m, k, fineRiseSeconds))
+            {
+                var fit = ModelFitter.Fit(candidate, fine, variance, FreeAround(candidate, k - 1, k + 1), Iterations, cancellation);
+                trials++;
+                // The hypothesis is a spot at the step, to within the resolution: one the fit moved further away is
+                // soaking up misfit elsewhere (a lossy stretch's slope).
+                var after = fit.Model.Events;
+                if (Math.Abs(after[k + 1].RoundTripSeconds - after[k].RoundTripSeconds) > fineRiseSeconds) continue;
+                double bic = Bic(fit);
+                // Two parameters more: the spot must win by the margin.
+                if (bic < bestBic - ModelSelection.EvidenceMargin && (winner is null || bic < winner.Bic)) winner = new RunModelFit(fit, bic);
+            }
+            if (winner is null) continue;
+            (best, bestBic) = (winner.Fit, winner.Bic);
+            changed = true;
+            k++;
+        }
         if (changed)
         {
             best = ModelFitter.Fit(best.Model, fine, variance, cancellation: cancellation);
@@ -127,6 +155,28 @@ internal static class ResolutionRefinement
     }
 
     private sealed record RunModelFit(ModelFit Fit, double Bic);
+
+    /// <summary>Starting size of a spot added at a boundary: a time constant of this many sharper rise times (small, so the
+    /// start is the model without it, and the fit grows it).</summary>
+    private const double SpotStartRiseTimes = 0.1;
+
+    /// <summary>Boundary <paramref name="index"/> with a series L, and with a shunt C, at its place in the line before it
+    /// (τ = L/2Z or ZC/2 of <see cref="SpotStartRiseTimes"/>; DESIGN.md §2).</summary>
+    private static IEnumerable<RunModel> SpotsAtBoundary(RunModel m, int index, double riseSeconds)
+    {
+        var e = m.Events[index];
+        double z = RunModelBuilder.ImpedanceBefore(m, index), tau = SpotStartRiseTimes * riseSeconds;
+        foreach (var spot in new[]
+                 {
+                     e with { Element = RunModelElement.SeriesInductor, Value = 2 * z * tau },
+                     e with { Element = RunModelElement.ShuntCapacitor, Value = 2 * tau / z },
+                 })
+        {
+            var list = m.Events.ToList();
+            list.Insert(index, spot);
+            yield return m.WithEvents(list);
+        }
+    }
 
     /// <summary>The edge parameters and events <paramref name="from"/>..<paramref name="to"/> (clamped) free, the rest fixed.</summary>
     private static bool[] FreeAround(RunModel model, int from, int to) => model.FreeMask(from, to, withLoss: false);
