@@ -113,6 +113,7 @@ public static class Locator
             context = context with { Loss = estimatedLoss, EstimateLoss = estimatedLoss is not null };
             initial = initial.WithContext(context);
         }
+        ModelSelection.DebugTrace?.Invoke($"stage: selection on {data.Samples.Length} samples");
         var selection = ModelSelection.Select(initial, data, riseEffective, options.CancellationToken);
         if (data.FilterSigmaSeconds > 0)
         {
@@ -121,7 +122,9 @@ public static class Locator
                 ResolutionRefinement.MaximumRiseTimesPerWindow);
             double riseFine = fine.EffectiveRiseSeconds(rise);
             options.Progress?.Report(0.8);
+            ModelSelection.DebugTrace?.Invoke($"stage: refinement on {fine.Samples.Length} samples");
             selection = ResolutionRefinement.Refine(selection, fine, riseFine, riseEffective, options.CancellationToken);
+            ModelSelection.DebugTrace?.Invoke("stage: refinement done");
             data = fine;
             riseEffective = riseFine;
         }

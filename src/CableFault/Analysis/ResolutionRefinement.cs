@@ -41,6 +41,7 @@ internal static class ResolutionRefinement
 
         var best = ModelFitter.Fit(start, fine, variance, cancellation: cancellation);
         double bestBic = Bic(best);
+        ModelSelection.DebugTrace?.Invoke($"refinement: first fit {best.Iterations} iterations, bic {bestBic:0.0}");
         int trials = coarse.Trials + 1;
         bool changed = false;
         int i = 0;
@@ -140,6 +141,7 @@ internal static class ResolutionRefinement
             changed = true;
             k++;
         }
+        ModelSelection.DebugTrace?.Invoke($"refinement: trials done, changed {changed}");
         if (changed)
         {
             best = ModelFitter.Fit(best.Model, fine, variance, cancellation: cancellation);
