@@ -120,7 +120,9 @@ internal static class ResolutionRefinement
             var m = best.Model;
             // Not the last event: a boundary there is the run's resistive end, modelled as a matched line of that
             // impedance, whose small difference from a resistor on a lossy cable a spot would only soak up.
-            if (m.Events[k].Element != RunModelElement.Boundary || k == m.Events.Count - 1) continue;
+            // Nor while the loss is estimated with the events: its misfit leaves residual at every step, which a spot
+            // would soak up.
+            if (m.Events[k].Element != RunModelElement.Boundary || k == m.Events.Count - 1 || m.Context.EstimateLoss) continue;
             double excess = ModelSelection.LocalExcess(best, fine, variance, m.TimeOffsetSeconds + m.Events[k].RoundTripSeconds, fineRiseSeconds);
             if (excess < 2 * logN + ModelSelection.EvidenceMargin) continue;
             RunModelFit? winner = null;
