@@ -292,7 +292,6 @@ internal static class ModelSelection
         bool TryBestJudged(IReadOnlyList<RunModel> candidates, Func<RunModel, bool> isSimpler, params int[] focus)
         {
             var saved = (best, bestBic);
-            bool IsSimpler(RunModel candidate) => isSimpler(candidate);
             var admitted = candidates.Select(c => Admit(c, focus)).OfType<Trial>().ToList();
             var results = new (ModelFit Fit, double Bic)[admitted.Count];
             ForEachInParallel(admitted.Count, k => results[k] = RunTrial(admitted[k], saved.bestBic), cancellation);
@@ -303,7 +302,7 @@ internal static class ModelSelection
             {
                 (best, bestBic) = saved;
                 lastProbe = null;
-                if (Conclude(admitted[k], results[k].Fit, results[k].Bic, IsSimpler(admitted[k].Candidate)) && bestBic < winnerBic) { winner = best; winnerBic = bestBic; }
+                if (Conclude(admitted[k], results[k].Fit, results[k].Bic, isSimpler(admitted[k].Candidate)) && bestBic < winnerBic) { winner = best; winnerBic = bestBic; }
                 if (lastProbe is { } p && (leading is null || p.Bic < leading.Value.Bic)) leading = p;
             }
             (best, bestBic) = winner is null ? saved : (winner, winnerBic);
@@ -313,7 +312,7 @@ internal static class ModelSelection
             {
                 var fit = ModelFitter.Fit(lead.Fit.Model, data, variance, lead.Free, TrialIterations - TrialFirstIterations, cancellation);
                 double bic = Bic(fit);
-                bool accept = Accepts(fit, bic, IsSimpler(fit.Model));
+                bool accept = Accepts(fit, bic, isSimpler(fit.Model));
                 DebugTrace?.Invoke($"resumed: bic {bic:0.0} vs best {bestBic:0.0} conv {fit.Converged} -> {accept}");
                 if (accept) { (best, bestBic) = (fit, bic); return true; }
             }
@@ -812,16 +811,17 @@ internal static class ModelSelection
         return (sum, Math.Max(0, to - from + 1));
     }
 
-    /// <summary>A boundary as the resistor that reflects alike: a drop to Z as shunt R = Z_prev·Z/(Z_prev − Z), a rise to
-    /// Z as series R = Z − Z_prev (the line then continues at Z_prev).</summary>
-    private static RunModelEvent Resistive(RunModel m, int index)
-    {
-        var e = m.Events[index];
-        double zPrev = RunModelBuilder.ImpedanceBefore(m, index);
-        return e.Value < zPrev
-            ? e with { Element = RunModelElement.ShuntResistor, Value = zPrev * e.Value / Math.Max(zPrev - e.Value, 1e-9) }
-            : e with { Element = RunModelElement.SeriesResistor, Value = Math.Max(e.Value - zPrev, 1e-6) };
-    }
+    /// <summary>A boundary as the resistor that reflects alike (the line then continues at Z_prev; see
+    /// <see cref="ResistorReading"/>).</summary>
+    private static RunModelEvent Resistive(RunModel m, int index) =>
+        ResistorReading(m.Events[index], RunModelBuilder.ImpedanceBefore(m, index), m.Events[index].Value);
+
+    /// <summary>Event <paramref name="e"/> as the resistor on a line of <paramref name="lineOhms"/> that a step to
+    /// <paramref name="stepOhms"/> looks like: below the line a shunt R = Z_line·Z/(Z_line − Z), above it a series
+    /// R = Z − Z_line.</summary>
+    private static RunModelEvent ResistorReading(RunModelEvent e, double lineOhms, double stepOhms) => stepOhms < lineOhms
+        ? e with { Element = RunModelElement.ShuntResistor, Value = lineOhms * stepOhms / Math.Max(lineOhms - stepOhms, 1e-9) }
+        : e with { Element = RunModelElement.SeriesResistor, Value = Math.Max(stepOhms - lineOhms, 1e-6) };
 
     /// <summary>
     /// <paramref name="events"/> with boundary <paramref name="index"/> of <paramref name="m"/> as its resistor (see
@@ -871,21 +871,18 @@ internal static class ModelSelection
         // With the loss estimated along, the level an end's echo returns to is the cable's DC resistance as much as a
         // resistor's: the reading is not identifiable, and it lets a resistor soak up the loss (benchmark with only VF
         // and Z₀ told: 158 false events without this gate and the refinement's like it, 148 with them).
-        if (m.Context.EstimateLoss) return null;
         var e = m.Events[index];
+        if (m.Context.EstimateLoss || e.Element != RunModelElement.Boundary) return null;
         // The section's start: the boundary before, passing over any that barely change the line (a fit's leftovers).
         int start = index - 1;
         while (start >= 0 && m.Events[start].Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, start)) < NegligibleReflection) start--;
-        if (e.Element != RunModelElement.Boundary || start < 0 || m.Events[start].Element != RunModelElement.Boundary) return null;
+        if (start < 0 || m.Events[start].Element != RunModelElement.Boundary) return null;
         double z0 = m.Context.ImpedanceOhms, zPrev = RunModelBuilder.ImpedanceBefore(m, index), z = e.Value;
         if (Math.Abs(RunModelBuilder.ImpedanceBefore(m, start) - z0) > CompoundLineDeviation * z0) return null;
         if (Math.Abs(zPrev - z0) < CompoundLineDeviation * z0 || Math.Abs(z - z0) < 0.01 * z0) return null;
-        var resistor = z < z0
-            ? e with { Element = RunModelElement.ShuntResistor, Value = z0 * z / (z0 - z) }
-            : e with { Element = RunModelElement.SeriesResistor, Value = z - z0 };
         var list = ScaledAfter(events, index, z0 / z);
         list[index] = e with { Value = z0 };
-        list.Insert(index + 1, resistor);
+        list.Insert(index + 1, ResistorReading(e, z0, z));
         return list;
     }
 
