@@ -28,12 +28,9 @@ public class CompoundEventTests
         var result = Locator.Locate(Simulate(network, seed: 3), Options());
         string found = Describe(result);
 
-        var leak = result.Events.SingleOrDefault(e => e.Kind == EventKind.PartialShort);
-        Assert.True(leak is not null, $"expected one partial short at {joint} m; found: {found}");
-        Assert.InRange(leak!.DistanceMeters, joint - DistanceTolerance(joint), joint + DistanceTolerance(joint));
         // The leak's size rests on the end's echo level: ±10 % (a 1 mV-noise record sees that level to far better than 1 %,
         // the rest is the trade with the coincident step).
-        Assert.True(Math.Abs(leak.Value!.Value / leakOhms - 1) < 0.10, $"leak {leak.Value} Ω, expected {leakOhms} Ω; found: {found}");
+        AssertOneAt(result, EventKind.PartialShort, joint, leakOhms, 0.10);
         var back = result.Events.SingleOrDefault(e => e.Kind is EventKind.ImpedanceDrop or EventKind.ImpedanceRise
             && Math.Abs(e.DistanceMeters - joint) < 0.5);
         Assert.True(back?.ImpedanceOhms is double z && Math.Abs(z - ImpedanceOhms) < 2.5, $"expected a return to {ImpedanceOhms} Ω at {joint} m; found: {found}");
@@ -52,10 +49,7 @@ public class CompoundEventTests
         var result = Locator.Locate(Simulate(network, seed: 4), Options());
         string found = Describe(result);
 
-        var joint1 = result.Events.SingleOrDefault(e => e.Kind == EventKind.SeriesResistance);
-        Assert.True(joint1 is not null, $"expected one series resistance at {joint} m; found: {found}");
-        Assert.InRange(joint1!.DistanceMeters, joint - DistanceTolerance(joint), joint + DistanceTolerance(joint));
-        Assert.True(Math.Abs(joint1.Value!.Value / seriesOhms - 1) < 0.10, $"series {joint1.Value} Ω, expected {seriesOhms} Ω; found: {found}");
+        AssertOneAt(result, EventKind.SeriesResistance, joint, seriesOhms, 0.10);
         Assert.True(result.Events[^1].Kind == EventKind.Short, $"found: {found}");
         Assert.True(result.Events.Count == 4, $"expected a drop, a series resistance, a return and the short; found: {found}");
     }
@@ -69,15 +63,23 @@ public class CompoundEventTests
         var result = Locator.Locate(Simulate(network, seed: 5), Options());
         string found = Describe(result);
 
-        var spot = result.Events.SingleOrDefault(e => e.Kind == EventKind.Inductive);
-        Assert.True(spot is not null, $"expected an inductive spot at {SectionAt} m; found: {found}");
-        Assert.InRange(spot!.DistanceMeters, SectionAt - DistanceTolerance(SectionAt), SectionAt + DistanceTolerance(SectionAt));
         // ±20 %: at one place the spot's size trades with the step's position (both delay the edge), a correlation the
         // fit's covariance shows; the technician needs "about 25 nH at the joint".
-        Assert.True(Math.Abs(spot.Value!.Value / inductanceHenries - 1) < 0.20, $"{spot.Value} H, expected 25 nH; found: {found}");
+        AssertOneAt(result, EventKind.Inductive, SectionAt, inductanceHenries, 0.20);
         var rise = result.Events.SingleOrDefault(e => e.Kind == EventKind.ImpedanceRise);
         Assert.True(rise?.ImpedanceOhms is double z && Math.Abs(z - 75) < 3, $"expected a rise to 75 Ω at {SectionAt} m; found: {found}");
         Assert.True(result.Events.Count == 4, $"expected a spot, a rise, a drop and the open; found: {found}");
+    }
+
+    /// <summary>Exactly one event of <paramref name="kind"/>, within the distance target of <paramref name="meters"/>, its
+    /// value (SI) within <paramref name="relativeTolerance"/> of <paramref name="value"/>.</summary>
+    private static void AssertOneAt(LocateResult result, EventKind kind, double meters, double value, double relativeTolerance)
+    {
+        string found = Describe(result);
+        var one = result.Events.SingleOrDefault(e => e.Kind == kind);
+        Assert.True(one is not null, $"expected one {kind} at {meters} m; found: {found}");
+        Assert.InRange(one!.DistanceMeters, meters - DistanceTolerance(meters), meters + DistanceTolerance(meters));
+        Assert.True(one.Value is double v && Math.Abs(v / value - 1) < relativeTolerance, $"{kind} {one.Value}, expected {value}; found: {found}");
     }
 
     private static string Describe(LocateResult result) =>
