@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Numerics;
 using CableFault.Networks;
 using CableFault.Traces;
@@ -116,6 +117,7 @@ public static class ForwardModel
 
         double zs = settings.SourceImpedanceOhms, amplitude = settings.IncidentAmplitudeVolts;
         double[] transformed;
+        double[]? pooled = null;
         if (cache is not null)
         {
             int bins = 0;
@@ -123,18 +125,23 @@ public static class ForwardModel
             var grid = new SweepCache.Grid(m, sigma, dOmega, bins);
             var (edge, delays) = cache.Stimulus(grid, settings.EdgeShape, rise, edgeCentre);
             var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid);
-            var ys = new Complex[bins];
+            // The spectrum overwrites N bin by bin (each bin reads only its own N and D).
+            var ys = ns;
             for (int k = 0; k < bins; k++)
             {
                 // The same operations in the same order as the uncached loop below.
                 var s = new Complex(sigma, k * dOmega);
                 Complex n = ns[k];
-                Complex h = n / (zs * ds[k] + n);
-                Complex y = h * 2 * amplitude * edge[k] * delays[k] / s;
+                Complex h = ComplexMath.Divide(n, zs * ds[k] + n);
+                Complex y = ComplexMath.Divide(ComplexMath.Multiply(ComplexMath.Multiply(h * 2 * amplitude, edge[k]), delays[k]), s);
                 if (k == m / 2) y = new Complex(y.Real, 0);
                 ys[k] = y;
             }
-            transformed = InverseFft.Real(ys, m);
+            pooled = ArrayPool<double>.Shared.Rent(m);
+            InverseFft.Real(ys.AsSpan(0, bins), m, pooled);
+            ArrayPool<Complex>.Shared.Return(ns);
+            ArrayPool<Complex>.Shared.Return(ds);
+            transformed = pooled;
         }
         else
         {
@@ -169,6 +176,7 @@ public static class ForwardModel
             double t = index * dt;
             samples[i] = Math.Exp(sigma * t) * transformed[index] / period;
         }
+        if (pooled is not null) ArrayPool<double>.Shared.Return(pooled);
         return samples;
     }
 

@@ -43,10 +43,20 @@ internal static class InverseFft
     /// <param name="m">Transform length M, a power of two ≥ 2.</param>
     internal static double[] Real(ReadOnlySpan<Complex> given, int m)
     {
+        var x = new double[m];
+        Real(given, m, x);
+        return x;
+    }
+
+    /// <summary>As <see cref="Real(ReadOnlySpan{Complex}, int)"/>, into <paramref name="x"/> (at least M long); the work
+    /// array is pooled, so repeated transforms allocate nothing.</summary>
+    internal static void Real(ReadOnlySpan<Complex> given, int m, Span<double> x)
+    {
         var (twiddles, reversed) = Plan(m);
         int half = m / 2;
         Complex X(int k, ReadOnlySpan<Complex> g) => k < g.Length ? g[k] : Complex.Zero;
-        var a = new Complex[half];
+        var rented = System.Buffers.ArrayPool<Complex>.Shared.Rent(half);
+        var a = rented.AsSpan(0, half);
         for (int k = 0; k < half; k++)
         {
             Complex xk = X(k, given), xm = Complex.Conjugate(X(half - k, given));
@@ -60,19 +70,20 @@ internal static class InverseFft
             {
                 for (int j = 0; j < halfSize; j++)
                 {
-                    Complex w = twiddles[j * step];
-                    Complex u = a[start + j], v = a[start + j + halfSize] * w;
-                    a[start + j] = u + v;
-                    a[start + j + halfSize] = u - v;
+                    // u ± v·w in real arithmetic, in System.Numerics.Complex's order (its operators were not inlined
+                    // here and their calls cost more than the butterfly).
+                    Complex w = twiddles[j * step], u = a[start + j], x2 = a[start + j + halfSize];
+                    double vr = x2.Real * w.Real - x2.Imaginary * w.Imaginary, vi = x2.Imaginary * w.Real + x2.Real * w.Imaginary;
+                    a[start + j] = new Complex(u.Real + vr, u.Imaginary + vi);
+                    a[start + j + halfSize] = new Complex(u.Real - vr, u.Imaginary - vi);
                 }
             }
         }
-        var x = new double[m];
         for (int n = 0; n < half; n++)
         {
             x[2 * n] = a[n].Real;
             x[2 * n + 1] = a[n].Imaginary;
         }
-        return x;
+        System.Buffers.ArrayPool<Complex>.Shared.Return(rented);
     }
 }

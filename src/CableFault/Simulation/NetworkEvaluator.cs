@@ -1,4 +1,6 @@
+using System.Buffers;
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using CableFault.Cables;
 
 namespace CableFault.Simulation;
@@ -79,10 +81,14 @@ internal sealed class NetworkEvaluator
     /// Input impedance pairs at every bin of <paramref name="grid"/>, with the per-bin propagation and segment matrices
     /// taken from <paramref name="cache"/>: the same arithmetic as <see cref="Evaluate"/> without its transcendental calls.
     /// </summary>
+    /// <returns>Arrays rented from <see cref="ArrayPool{T}.Shared"/>, at least <see cref="SweepCache.Grid.BinCount"/> long
+    /// (entries past it are undefined): the caller returns them. A fit runs thousands of sweeps whose arrays are too large
+    /// for the young generation, and fresh ones made the garbage collector a large share of the cost.</returns>
     internal static (Complex[] N, Complex[] D) EvaluateSweep(CompiledNetwork network, SweepCache cache, SweepCache.Grid grid)
     {
         // Operations outer, bins inner: each operation is one tight loop over the bins (no dispatch per bin).
         int bins = grid.BinCount;
+        var pool = ArrayPool<Complex>.Shared;
         var stackN = new Complex[network.MaxStackDepth + 1][];
         var stackD = new Complex[network.MaxStackDepth + 1][];
         int top = -1;
@@ -95,26 +101,28 @@ internal sealed class NetworkEvaluator
                 case CompiledNetwork.OpKind.Open or CompiledNetwork.OpKind.Short or CompiledNetwork.OpKind.Resistor
                     or CompiledNetwork.OpKind.Matched or CompiledNetwork.OpKind.ResistorParallelCapacitor:
                     top++;
-                    n = stackN[top] = new Complex[bins];
-                    d = stackD[top] = new Complex[bins];
+                    n = stackN[top] = pool.Rent(bins);
+                    d = stackD[top] = pool.Rent(bins);
+                    var nBins = n.AsSpan(0, bins);
+                    var dBins = d.AsSpan(0, bins);
                     switch (op.Kind)
                     {
-                        case CompiledNetwork.OpKind.Open: Array.Fill(n, Complex.One); break;
-                        case CompiledNetwork.OpKind.Short: Array.Fill(d, Complex.One); break;
-                        case CompiledNetwork.OpKind.Resistor: Array.Fill(n, op.Value); Array.Fill(d, Complex.One); break;
+                        case CompiledNetwork.OpKind.Open: nBins.Fill(Complex.One); dBins.Clear(); break;
+                        case CompiledNetwork.OpKind.Short: nBins.Clear(); dBins.Fill(Complex.One); break;
+                        case CompiledNetwork.OpKind.Resistor: nBins.Fill(op.Value); dBins.Fill(Complex.One); break;
                         case CompiledNetwork.OpKind.Matched:
                             cache.Medium(grid, network.Media[op.Medium]).Zc.AsSpan(0, bins).CopyTo(n);
-                            Array.Fill(d, Complex.One);
+                            dBins.Fill(Complex.One);
                             break;
                         default:
-                            Array.Fill(n, op.Value);
+                            nBins.Fill(op.Value);
                             for (int k = 0; k < bins; k++) d[k] = 1 + S(k) * op.Value * op.Value2;
                             break;
                     }
                     break;
                 case CompiledNetwork.OpKind.ShuntC:
                     n = stackN[top]; d = stackD[top];
-                    for (int k = 0; k < bins; k++) d[k] += S(k) * op.Value * n[k];
+                    for (int k = 0; k < bins; k++) d[k] += ComplexMath.Multiply(S(k) * op.Value, n[k]);
                     break;
                 case CompiledNetwork.OpKind.ShuntR:
                     n = stackN[top]; d = stackD[top];
@@ -122,7 +130,7 @@ internal sealed class NetworkEvaluator
                     break;
                 case CompiledNetwork.OpKind.SeriesL:
                     n = stackN[top]; d = stackD[top];
-                    for (int k = 0; k < bins; k++) n[k] += S(k) * op.Value * d[k];
+                    for (int k = 0; k < bins; k++) n[k] += ComplexMath.Multiply(S(k) * op.Value, d[k]);
                     break;
                 case CompiledNetwork.OpKind.SeriesR:
                     n = stackN[top]; d = stackD[top];
@@ -131,15 +139,15 @@ internal sealed class NetworkEvaluator
                 case CompiledNetwork.OpKind.Segment:
                 {
                     n = stackN[top]; d = stackD[top];
+                    if (network.Media[op.Medium].IsLossless)
+                    {
+                        ApplyLosslessSegment(n, d, grid, network.Media[op.Medium], op.Value);
+                        break;
+                    }
                     var m = cache.Segment(grid, network.Media[op.Medium], op.Value);
                     Complex[] a = m.A, b = m.B, c = m.C;
                     for (int k = 0; k < bins; k++)
-                    {
-                        Complex n0 = n[k], d0 = d[k];
-                        n[k] = a[k] * n0 + b[k] * d0;
-                        d[k] = c[k] * n0 + a[k] * d0;
-                        Normalise(ref n[k], ref d[k]);
-                    }
+                        Apply(n, d, k, a[k].Real, a[k].Imaginary, b[k].Real, b[k].Imaginary, c[k].Real, c[k].Imaginary);
                     break;
                 }
                 case CompiledNetwork.OpKind.Junction:
@@ -149,17 +157,85 @@ internal sealed class NetworkEvaluator
                         top--;
                         for (int k = 0; k < bins; k++)
                         {
-                            Complex nn = n1[k] * n2[k];
-                            Complex dd = d1[k] * n2[k] + d2[k] * n1[k];
+                            Complex nn = ComplexMath.Multiply(n1[k], n2[k]);
+                            Complex dd = ComplexMath.Multiply(d1[k], n2[k]) + ComplexMath.Multiply(d2[k], n1[k]);
                             Normalise(ref nn, ref dd);
                             n1[k] = nn;
                             d1[k] = dd;
                         }
+                        pool.Return(n2);
+                        pool.Return(d2);
                     }
                     break;
             }
         }
         return (stackN[0], stackD[0]);
+    }
+
+    /// <summary>
+    /// Applies a lossless segment's ABCD matrix (scaled by e^(−γl), see <see cref="SegmentMatrix"/>) to every bin's load
+    /// pair. There γ = s/v, so e^(−2γl) = e^(−2σl/v)·e^(−j2kΔω·l/v) turns by a fixed phasor per bin: one multiplication per
+    /// bin instead of a complex exponential, refreshed exactly every 256 bins (and after a small-argument bin) so rounding
+    /// cannot accumulate (≲ 256 ulp); Z_c is real, so C = sinh/Z_c is a scaling. Computed in place rather than kept in
+    /// <see cref="SweepCache"/>: reading three stored complex arrays per bin cost more than this arithmetic.
+    /// </summary>
+    private static void ApplyLosslessSegment(Complex[] n, Complex[] d, SweepCache.Grid grid, CableMedium medium, double lengthMeters)
+    {
+        double v = medium.VelocityMetersPerSecond;
+        Complex step = Complex.FromPolarCoordinates(1, -grid.DOmega * (2 * lengthMeters / v));
+        double z = medium.ImpedanceOhms, y = 1 / z;
+        double er = 1, ei = 0;
+        int previous = -2;
+        // |γl| grows with the bin, so once a bin is past the small-argument bound every later one is too.
+        bool small = true;
+        for (int k = 0; k < grid.BinCount; k++)
+        {
+            var s = new Complex(grid.Sigma, k * grid.DOmega);
+            double ar, ai, br, bi, cr, ci;
+            if (small)
+            {
+                // The same operations as Propagation's γ = s/v times l.
+                Complex gammaLength = s / v * lengthMeters;
+                small = gammaLength.Magnitude < 1e-4;
+                if (small)
+                {
+                    var (a, b, c) = SegmentMatrix(gammaLength, z, s * medium.InductanceHenriesPerMeter * lengthMeters,
+                        s * medium.CapacitanceFaradsPerMeter * lengthMeters);
+                    (ar, ai, br, bi, cr, ci) = (a.Real, a.Imaginary, b.Real, b.Imaginary, c.Real, c.Imaginary);
+                    Apply(n, d, k, ar, ai, br, bi, cr, ci);
+                    continue;
+                }
+            }
+            if ((k & 255) == 0 || previous != k - 1)
+            {
+                Complex e = Complex.Exp(-2 * (s / v * lengthMeters));
+                (er, ei) = (e.Real, e.Imaginary);
+            }
+            else (er, ei) = (er * step.Real - ei * step.Imaginary, ei * step.Real + er * step.Imaginary);
+            previous = k;
+            // Written out in real arithmetic (the operations of System.Numerics.Complex, in its order): the complex
+            // operators were not inlined here and their calls were a large share of a model run.
+            double shr = (1 - er) * 0.5, shi = -ei * 0.5;
+            ar = (1 + er) * 0.5;
+            ai = ei * 0.5;
+            br = shr * z;
+            bi = shi * z;
+            cr = shr * y;
+            ci = shi * y;
+            Apply(n, d, k, ar, ai, br, bi, cr, ci);
+        }
+    }
+
+    /// <summary>(N, D) ← (A·N + B·D, C·N + A·D) at bin <paramref name="k"/>, then <see cref="Normalise"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void Apply(Complex[] n, Complex[] d, int k, double ar, double ai, double br, double bi, double cr, double ci)
+    {
+        double nr = n[k].Real, ni = n[k].Imaginary, dr = d[k].Real, di = d[k].Imaginary;
+        var newN = new Complex((ar * nr - ai * ni) + (br * dr - bi * di), (ai * nr + ar * ni) + (bi * dr + br * di));
+        var newD = new Complex((cr * nr - ci * ni) + (ar * dr - ai * di), (ci * nr + cr * ni) + (ai * dr + ar * di));
+        Normalise(ref newN, ref newD);
+        n[k] = newN;
+        d[k] = newD;
     }
 
     /// <summary>γ, Z_c, Z′ and Y′ of a medium at complex frequency s.</summary>
@@ -199,6 +275,7 @@ internal sealed class NetworkEvaluator
         return ((1 + e) * 0.5, zc * sh, sh / zc);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     internal static void Normalise(ref Complex n, ref Complex d)
     {
         double scale = Math.Max(Math.Abs(n.Real) + Math.Abs(n.Imaginary), Math.Abs(d.Real) + Math.Abs(d.Imaginary));

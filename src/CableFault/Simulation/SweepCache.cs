@@ -6,7 +6,7 @@ namespace CableFault.Simulation;
 
 /// <summary>
 /// Per-bin quantities of the forward model kept across calls that share a frequency contour: the stimulus factor,
-/// each medium's propagation and each segment's ABCD entries. A model fit simulates the same run hundreds of times
+/// each medium's propagation and each lossy segment's ABCD entries. A model fit simulates the same run hundreds of times
 /// with one or two lengths or lumped values changed (every Jacobian column), so nearly all of these repeat; the
 /// per-bin square roots, powers and exponentials then cost once rather than once per call.
 /// </summary>
@@ -87,39 +87,8 @@ internal sealed class SweepCache
         return _media.GetOrAdd(key, bins);
     }
 
-    /// <summary>
-    /// <see cref="NetworkEvaluator.SegmentMatrix"/> for a lossless medium along the whole grid: there γ = s/v, so
-    /// e^(−2γl) = e^(−2σl/v)·e^(−j2kΔω·l/v) turns by a fixed phasor per bin. The recurrence replaces a complex
-    /// exponential per bin by a multiplication (it was most of a model run's cost), refreshed exactly every 256 bins so
-    /// rounding cannot accumulate (≲ 256 ulp); Z_c is real, so C = sinh/Z_c is a scaling.
-    /// </summary>
-    private static void LosslessSegment(Grid grid, CableMedium medium, double lengthMeters, MediumBins m, SegmentBins bins)
-    {
-        double delay = 2 * lengthMeters / medium.VelocityMetersPerSecond;
-        Complex step = Complex.FromPolarCoordinates(1, -grid.DOmega * delay);
-        double z = medium.ImpedanceOhms, y = 1 / z;
-        Complex e = Complex.One;
-        int previous = -2;
-        for (int k = 0; k < grid.BinCount; k++)
-        {
-            Complex gammaLength = m.Gamma[k] * lengthMeters;
-            if (gammaLength.Magnitude < 1e-4)
-            {
-                (bins.A[k], bins.B[k], bins.C[k]) = NetworkEvaluator.SegmentMatrix(gammaLength, m.Zc[k], m.ZSeries[k] * lengthMeters,
-                    m.YShunt[k] * lengthMeters);
-                continue;
-            }
-            // After a small-argument bin (or every 256) the recurrence restarts exactly.
-            e = (k & 255) == 0 || previous != k - 1 ? Complex.Exp(-2 * gammaLength) : e * step;
-            previous = k;
-            Complex sh = (1 - e) * 0.5;
-            bins.A[k] = (1 + e) * 0.5;
-            bins.B[k] = sh * z;
-            bins.C[k] = sh * y;
-        }
-    }
-
-    /// <summary>A segment's ABCD entries per bin, scaled by e^(−γl) (see <see cref="NetworkEvaluator.SegmentMatrix"/>).</summary>
+    /// <summary>A lossy segment's ABCD entries per bin, scaled by e^(−γl) (see <see cref="NetworkEvaluator.SegmentMatrix"/>);
+    /// lossless segments are computed in place (see NetworkEvaluator.EvaluateSweep).</summary>
     internal SegmentBins Segment(Grid grid, CableMedium medium, double lengthMeters)
     {
         var key = new SegmentKey(KeyOf(grid, medium), lengthMeters);
@@ -127,12 +96,6 @@ internal sealed class SweepCache
         var m = Medium(grid, medium);
         int count = grid.BinCount;
         var bins = new SegmentBins(new Complex[count], new Complex[count], new Complex[count]);
-        if (medium.IsLossless)
-        {
-            LosslessSegment(grid, medium, lengthMeters, m, bins);
-            Trim();
-            return _segments.GetOrAdd(key, bins);
-        }
         for (int k = 0; k < count; k++)
         {
             var (a, b, c) = NetworkEvaluator.SegmentMatrix(m.Gamma[k] * lengthMeters, m.Zc[k], m.ZSeries[k] * lengthMeters,
