@@ -123,7 +123,8 @@ public static class Locator
             double riseFine = fine.EffectiveRiseSeconds(rise);
             options.Progress?.Report(0.8);
             ModelSelection.DebugTrace?.Invoke($"stage: refinement on {fine.Samples.Length} samples");
-            selection = ResolutionRefinement.Refine(selection, fine, riseFine, riseEffective, options.CancellationToken);
+            selection = ResolutionRefinement.Refine(selection, fine, riseFine, riseEffective, options.CancellationToken,
+                (start, stop) => FitData.Prepare(aligned, start, stop, rise, characteristics.NoiseRmsVolts, double.PositiveInfinity), rise);
             ModelSelection.DebugTrace?.Invoke("stage: refinement done");
             data = fine;
             riseEffective = riseFine;

@@ -31,8 +31,12 @@ internal static class ResolutionRefinement
     /// tap) where the sharper data say so. <paramref name="fineRiseSeconds"/> and <paramref name="coarseRiseSeconds"/> are the effective
     /// rise times of the two data sets, s.
     /// </summary>
+    /// <param name="fullResolution">Cuts unsmoothed samples of the aligned trace between two times, s, for
+    /// <see cref="FullResolutionReview"/>; null skips that look.</param>
+    /// <param name="instrumentRiseSeconds">The instrument's own rise, s.</param>
     internal static ModelSelection.Result Refine(ModelSelection.Result coarse, FitData fine, double fineRiseSeconds,
-        double coarseRiseSeconds, CancellationToken cancellation)
+        double coarseRiseSeconds, CancellationToken cancellation, Func<double, double, FitData>? fullResolution = null,
+        double instrumentRiseSeconds = 0)
     {
         var start = coarse.Fit.Model;
         double variance = ModelSelection.SampleVariance(fine, start);
@@ -142,6 +146,13 @@ internal static class ResolutionRefinement
             (best, bestBic) = (winner.Fit, winner.Bic);
             changed = true;
             k++;
+        }
+        if (fullResolution is not null
+            && FullResolutionReview.Review(best, fullResolution, instrumentRiseSeconds, fineRiseSeconds, ref trials, cancellation) is { } reviewed)
+        {
+            best = ModelFitter.Fit(reviewed, fine, variance, cancellation: cancellation);
+            changed = false;
+            trials++;
         }
         ModelSelection.DebugTrace?.Invoke($"refinement: trials done, changed {changed}");
         if (changed)

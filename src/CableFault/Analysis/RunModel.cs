@@ -27,6 +27,9 @@ internal sealed class RunModel
     /// <summary>Number of global parameters (amplitude, time offset, rise, level offset) at the start of the vector.</summary>
     internal const int GlobalParameterCount = 4;
 
+    /// <summary>Indices of the amplitude and the time offset in <see cref="ToVector"/>.</summary>
+    internal const int AmplitudeIndex = 0, TimeOffsetIndex = 1;
+
     /// <summary>Forward-model evaluations so far in this process (for cost measurements).</summary>
     internal static long SimulationCount;
 
@@ -229,7 +232,9 @@ internal sealed class RunModel
             EdgeShape = EdgeShape.Gaussian,
             SampleIntervalSeconds = data.IntervalSeconds,
             SampleCount = data.Samples.Length,
-            PreTriggerSeconds = Math.Max(0, TimeOffsetSeconds - data.StartTimeSeconds),
+            // Negative when the data start after the incident edge (a window cut from the middle of the record): the
+            // forward model then starts its samples that long after the edge.
+            PreTriggerSeconds = TimeOffsetSeconds - data.StartTimeSeconds,
         };
         var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings, data.Cache);
         if (OffsetVolts != 0)

@@ -81,7 +81,4 @@ public class CompoundEventTests
         Assert.InRange(one!.DistanceMeters, meters - DistanceTolerance(meters), meters + DistanceTolerance(meters));
         Assert.True(one.Value is double v && Math.Abs(v / value - 1) < relativeTolerance, $"{kind} {one.Value}, expected {value}; found: {found}");
     }
-
-    private static string Describe(LocateResult result) =>
-        string.Join("; ", result.Events.Select(e => $"{e.Kind} {e.DistanceMeters:0.###} m {e.Value:G3} {e.ImpedanceOhms:G3} Ω"));
 }

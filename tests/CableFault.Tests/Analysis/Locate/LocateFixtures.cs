@@ -47,6 +47,10 @@ internal static class LocateFixtures
 
     internal static CableNetwork Run(params NetworkElement[] elements) => new(new NetworkBranch(elements));
 
+    /// <summary>The events in one line, for failure messages.</summary>
+    internal static string Describe(LocateResult result) =>
+        string.Join("; ", result.Events.Select(e => $"{e.Kind} {e.DistanceMeters:0.###} m {e.Value:G3} {e.ImpedanceOhms:G3} Ω"));
+
     /// <summary>The one event nearest <paramref name="meters"/>; fails when none lies within 1 m.</summary>
     internal static LocatedEvent Near(LocateResult result, double meters)
     {

@@ -1,0 +1,115 @@
+namespace CableFault.Analysis;
+
+/// <summary>
+/// A last look, at the instrument's own resolution, at each capacitive or inductive spot of a model that was fitted to
+/// smoothed data. On a long record even the sharper data of <see cref="ResolutionRefinement"/> are smoothed to several
+/// instrument rise times, and a section of other cable one or two rise times long (a crushed or wet stretch, a short
+/// patch of other cable) then looks exactly like a lumped C or L. The unsmoothed samples around the spot still tell them
+/// apart: a section's reflection has a flat top and two edges, a lumped part's an exponential decay. Only a short window
+/// of samples is fitted, with the rest of the model held, so the look costs a few dozen model runs per spot.
+/// </summary>
+internal static class FullResolutionReview
+{
+    /// <summary>Instrument rise times of unsmoothed samples kept on each side of the spot, beyond the smoothed rise: the
+    /// spot's (or a section's) whole response and the level on both sides of it.</summary>
+    private const double WindowRiseTimes = 10;
+
+    /// <summary>Iteration limit of each local fit (warm started; few parameters are free).</summary>
+    private const int Iterations = 15;
+
+    /// <summary>
+    /// Replaces spots of <paramref name="fit"/>'s model by sections where unsmoothed windows of the trace, cut by
+    /// <paramref name="window"/> (aligned-time start and end, s), say so by the information criterion. Returns the model
+    /// with the replacements (the caller refits it), or null when nothing changed.
+    /// </summary>
+    /// <param name="fit">The model fitted to the smoothed data.</param>
+    /// <param name="window">Cuts the unsmoothed samples of the aligned trace between two times, s.</param>
+    /// <param name="instrumentRiseSeconds">The instrument's 10–90 % rise, s.</param>
+    /// <param name="smoothedRiseSeconds">Effective rise of the smoothed data the model was fitted to, s.</param>
+    /// <param name="trials">Counts the fits made.</param>
+    internal static RunModel? Review(ModelFit fit, Func<double, double, FitData> window, double instrumentRiseSeconds,
+        double smoothedRiseSeconds, ref int trials, CancellationToken cancellation)
+    {
+        var model = fit.Model;
+        bool changed = false;
+        double half = smoothedRiseSeconds + WindowRiseTimes * instrumentRiseSeconds;
+        for (int i = 0; i < model.Events.Count; i++)
+        {
+            if (!ReactiveSections.IsReactive(model.Events[i].Element)) continue;
+            // A row of like spots within the smoothed rise is looked at as one: together they may be one section's two ends.
+            int last = ReactiveSections.ClusterEnd(model, i, smoothedRiseSeconds);
+            // A spot at another event (a connector at a change of cable, a splice at a leak) is what it is: the hypothesis
+            // here is a stretch of other cable on its own.
+            bool alone = (i == 0 || model.Events[i].RoundTripSeconds - model.Events[i - 1].RoundTripSeconds > smoothedRiseSeconds)
+                && (last + 1 == model.Events.Count || model.Events[last + 1].RoundTripSeconds - model.Events[last].RoundTripSeconds > smoothedRiseSeconds);
+            if (!alone) { i = last; continue; }
+            double at = model.TimeOffsetSeconds + model.Events[i].RoundTripSeconds;
+            double span = model.Events[last].RoundTripSeconds - model.Events[i].RoundTripSeconds;
+            double start = at - half, end = at + span + half;
+            FitData local;
+            try { local = window(start, end); }
+            catch (ArgumentException) { i = last; continue; }
+            double variance = ModelSelection.SampleVariance(local, model);
+            double logN = ModelSelection.LogSampleCount(local);
+
+            // The spots as the smoothed data placed them, refitted with the instrument's sharpness: their places and
+            // sizes, and the rise (the smoothed data could not tell the instrument's rise from the smoothing), are free.
+            var spotFit = ModelFitter.Fit(model, local, variance, FreeInWindow(model, start, end), Iterations, cancellation);
+            trials++;
+            double spotBic = ModelSelection.Criterion(spotFit, local, variance);
+            double excess = last > i ? double.PositiveInfinity
+                : ModelSelection.LocalExcess(spotFit, local, variance, at, instrumentRiseSeconds);
+            ModelSelection.DebugTrace?.Invoke($"full-resolution look at {model.Events[i].Element}@{model.Events[i].RoundTripSeconds * 1e9:0.0} ns"
+                + $" ({last - i + 1}): {local.Samples.Length} samples, bic {spotBic:0.0}, excess {excess:0.0}");
+            // Only where a lone spot leaves more residual than the noise allows is a section worth a trial (the rule of the
+            // selection's splits); a row is always tried.
+            if (excess < 2 * logN + ModelSelection.EvidenceMargin) { i = last; continue; }
+
+            (ModelFit Fit, double Bic)? winner = null;
+            var spotModel = spotFit.Model;
+            double spotSpan = spotModel.Events[last].RoundTripSeconds - spotModel.Events[i].RoundTripSeconds;
+            // Fewer parameters than the spots need only not lose, as many must not lose, more must win by the margin.
+            int spotParameters = 2 * (last - i + 1);
+            double margin = spotParameters > 4 ? -ModelSelection.EvidenceMargin : spotParameters == 4 ? 0 : ModelSelection.EvidenceMargin;
+            foreach (double tau in new[] { spotSpan + 2 * instrumentRiseSeconds, spotSpan + smoothedRiseSeconds }.Distinct())
+            {
+                if (ReactiveSections.Replace(spotModel, i, last, tau) is not { } candidate) continue;
+                var sectionFit = ModelFitter.Fit(candidate, local, variance, FreeInWindow(candidate, start, end), Iterations, cancellation);
+                trials++;
+                var events = sectionFit.Model.Events;
+                // A section shorter than the instrument's rise is still a lumped spot to any data.
+                if (events[i + 1].RoundTripSeconds - events[i].RoundTripSeconds
+                    < ResolutionRefinement.MinimumSectionRiseTimes * instrumentRiseSeconds) continue;
+                double bic = ModelSelection.Criterion(sectionFit, local, variance);
+                ModelSelection.DebugTrace?.Invoke($"  section of {tau * 1e9:0.00} ns start: bic {bic:0.0} against {spotBic:0.0}");
+                if (bic < spotBic - margin && (winner is null || bic < winner.Value.Bic)) winner = (sectionFit, bic);
+            }
+            if (winner is null) { i = last; continue; }            if (winner is null) continue;
+            // Only the events are taken from the local fit: the rise and the level were fitted to a few samples.
+            model = new RunModel(model.Context, model.AmplitudeVolts, model.TimeOffsetSeconds, model.RiseSeconds,
+                winner.Value.Fit.Model.Events, model.OffsetVolts);
+            changed = true;
+            i++;
+        }
+        return changed ? model : null;
+    }
+
+    /// <summary>The rise, the level and every event between <paramref name="start"/> and <paramref name="end"/> (aligned
+    /// time, s) free; the amplitude and the time offset are held (a few samples away from the incident edge cannot tell
+    /// them from the events' sizes and places).</summary>
+    private static bool[] FreeInWindow(RunModel model, double start, double end)
+    {
+        int first = -1, last = -2;
+        for (int k = 0; k < model.Events.Count; k++)
+        {
+            double t = model.TimeOffsetSeconds + model.Events[k].RoundTripSeconds;
+            if (t < start || t > end) continue;
+            if (first < 0) first = k;
+            last = k;
+        }
+        var free = model.FreeMask(first, last, withLoss: false);
+        free[RunModel.AmplitudeIndex] = false;
+        free[RunModel.TimeOffsetIndex] = false;
+        return free;
+    }
+}
