@@ -241,6 +241,15 @@ internal static class ModelSelection
                 fit = ModelFitter.Fit(fit.Model, data, variance, trial.Free, TrialIterations - TrialFirstIterations, cancellation);
                 bic = Bic(fit);
             }
+            // A near miss may have stopped on a parameter the start's scaling made look flat (the rise, on smoothed data,
+            // where it barely changes the trace yet still sets every edge): one fresh fit from where it stopped, with new
+            // derivatives and scales, settles whether it really loses.
+            if (bic >= against - EvidenceMargin && bic < against + PromisingMargin)
+            {
+                var again = ModelFitter.Fit(fit.Model, data, variance, trial.Free, TrialIterations - TrialFirstIterations, cancellation);
+                double againBic = Bic(again);
+                if (againBic < bic) (fit, bic) = (again, againBic);
+            }
             return (fit, bic);
         }
 
