@@ -1,4 +1,3 @@
-using System.Buffers;
 using System.Numerics;
 using CableFault.Networks;
 using CableFault.Traces;
@@ -137,10 +136,10 @@ public static class ForwardModel
                 if (k == m / 2) y = new Complex(y.Real, 0);
                 ys[k] = y;
             }
-            pooled = ArrayPool<double>.Shared.Rent(m);
+            pooled = SweepBuffers<double>.Rent(m);
             InverseFft.Real(ys.AsSpan(0, bins), m, pooled);
-            ArrayPool<Complex>.Shared.Return(ns);
-            ArrayPool<Complex>.Shared.Return(ds);
+            SweepBuffers<Complex>.Return(ns);
+            SweepBuffers<Complex>.Return(ds);
             transformed = pooled;
         }
         else
@@ -176,7 +175,7 @@ public static class ForwardModel
             double t = index * dt;
             samples[i] = Math.Exp(sigma * t) * transformed[index] / period;
         }
-        if (pooled is not null) ArrayPool<double>.Shared.Return(pooled);
+        if (pooled is not null) SweepBuffers<double>.Return(pooled);
         return samples;
     }
 

@@ -55,7 +55,7 @@ internal static class InverseFft
         var (twiddles, reversed) = Plan(m);
         int half = m / 2;
         Complex X(int k, ReadOnlySpan<Complex> g) => k < g.Length ? g[k] : Complex.Zero;
-        var rented = System.Buffers.ArrayPool<Complex>.Shared.Rent(half);
+        var rented = SweepBuffers<Complex>.Rent(half);
         var a = rented.AsSpan(0, half);
         for (int k = 0; k < half; k++)
         {
@@ -84,6 +84,6 @@ internal static class InverseFft
             x[2 * n] = a[n].Real;
             x[2 * n + 1] = a[n].Imaginary;
         }
-        System.Buffers.ArrayPool<Complex>.Shared.Return(rented);
+        SweepBuffers<Complex>.Return(rented);
     }
 }

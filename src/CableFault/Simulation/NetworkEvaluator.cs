@@ -1,4 +1,3 @@
-using System.Buffers;
 using System.Numerics;
 using System.Runtime.CompilerServices;
 using CableFault.Cables;
@@ -81,15 +80,13 @@ internal sealed class NetworkEvaluator
     /// Input impedance pairs at every bin of <paramref name="grid"/>, with the per-bin propagation and segment matrices
     /// taken from <paramref name="cache"/>: the same arithmetic as <see cref="Evaluate"/> without its transcendental calls.
     /// </summary>
-    /// <returns>Arrays rented from <see cref="ArrayPool{T}.Shared"/>, at least <see cref="SweepCache.Grid.BinCount"/> long
-    /// (entries past it are undefined): the caller returns them. A fit runs thousands of sweeps whose arrays are too large
-    /// for the young generation, and fresh ones made the garbage collector a large share of the cost.</returns>
+    /// <returns>Arrays from <see cref="SweepBuffers{T}"/>, at least <see cref="SweepCache.Grid.BinCount"/> long
+    /// (entries past it are undefined): the caller returns them.</returns>
     internal static (Complex[] N, Complex[] D) EvaluateSweep(CompiledNetwork network, SweepCache cache, SweepCache.Grid grid)
     {
         // Operations outer, bins inner: each operation is one tight loop over the bins (no dispatch per bin).
         int bins = grid.BinCount;
-        var pool = ArrayPool<Complex>.Shared;
-        var stackN = new Complex[network.MaxStackDepth + 1][];
+                var stackN = new Complex[network.MaxStackDepth + 1][];
         var stackD = new Complex[network.MaxStackDepth + 1][];
         int top = -1;
         Complex S(int k) => new(grid.Sigma, k * grid.DOmega);
@@ -101,8 +98,8 @@ internal sealed class NetworkEvaluator
                 case CompiledNetwork.OpKind.Open or CompiledNetwork.OpKind.Short or CompiledNetwork.OpKind.Resistor
                     or CompiledNetwork.OpKind.Matched or CompiledNetwork.OpKind.ResistorParallelCapacitor:
                     top++;
-                    n = stackN[top] = pool.Rent(bins);
-                    d = stackD[top] = pool.Rent(bins);
+                    n = stackN[top] = SweepBuffers<Complex>.Rent(bins);
+                    d = stackD[top] = SweepBuffers<Complex>.Rent(bins);
                     var nBins = n.AsSpan(0, bins);
                     var dBins = d.AsSpan(0, bins);
                     switch (op.Kind)
@@ -163,8 +160,8 @@ internal sealed class NetworkEvaluator
                             n1[k] = nn;
                             d1[k] = dd;
                         }
-                        pool.Return(n2);
-                        pool.Return(d2);
+                        SweepBuffers<Complex>.Return(n2);
+                        SweepBuffers<Complex>.Return(d2);
                     }
                     break;
             }
