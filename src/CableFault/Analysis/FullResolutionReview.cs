@@ -17,6 +17,16 @@ internal static class FullResolutionReview
     /// <summary>Iteration limit of each local fit (warm started; few parameters are free).</summary>
     private const int Iterations = 15;
 
+    /// <summary>Iteration limit of a fit from a start the smoothed data did not place (spots read as a section).</summary>
+    private const int LongIterations = 40;
+
+    /// <summary>BIC units by which a reading of as many parameters must beat the selection's to replace it: "very strong"
+    /// evidence, 2·ln(Bayes factor) above 10 (Kass &amp; Raftery, <i>J. Am. Stat. Assoc.</i> 90, 1995, §3.2).</summary>
+    private const double OverturnMargin = 10;
+
+    /// <summary>Starting separations of two spots read from a section, as shares of its length.</summary>
+    private static readonly double[] SpotSeparationShares = [1, 0.5, 0.25];
+
     /// <summary>
     /// Replaces spots of <paramref name="fit"/>'s model by sections where unsmoothed windows of the trace, cut by
     /// <paramref name="window"/> (aligned-time start and end, s), say so by the information criterion. Returns the model
@@ -30,19 +40,31 @@ internal static class FullResolutionReview
     internal static RunModel? Review(ModelFit fit, Func<double, double, FitData> window, double instrumentRiseSeconds,
         double smoothedRiseSeconds, ref int trials, CancellationToken cancellation)
     {
-        var model = fit.Model;
+        // The smoothed data hardly see the instrument's own edge, so the model's rise is set to the one measured on the
+        // incident edge, and held: freed on a few samples away from that edge, it may drift to a tiny value that costs an
+        // enormous transform and buys nothing.
+        var fitted = fit.Model;
+        var model = new RunModel(fitted.Context, fitted.AmplitudeVolts, fitted.TimeOffsetSeconds, instrumentRiseSeconds, fitted.Events,
+            fitted.OffsetVolts);
         bool changed = false;
         double half = smoothedRiseSeconds + WindowRiseTimes * instrumentRiseSeconds;
         for (int i = 0; i < model.Events.Count; i++)
         {
+            if (model.Events[i].Element == RunModelElement.Boundary)
+            {
+                if (SectionAsSpots(ref model, i, window, half, smoothedRiseSeconds, ref trials, cancellation))
+                {
+                    changed = true;
+                    i++;
+                }
+                continue;
+            }
             if (!ReactiveSections.IsReactive(model.Events[i].Element)) continue;
             // A row of like spots within the smoothed rise is looked at as one: together they may be one section's two ends.
             int last = ReactiveSections.ClusterEnd(model, i, smoothedRiseSeconds);
             // A spot at another event (a connector at a change of cable, a splice at a leak) is what it is: the hypothesis
             // here is a stretch of other cable on its own.
-            bool alone = (i == 0 || model.Events[i].RoundTripSeconds - model.Events[i - 1].RoundTripSeconds > smoothedRiseSeconds)
-                && (last + 1 == model.Events.Count || model.Events[last + 1].RoundTripSeconds - model.Events[last].RoundTripSeconds > smoothedRiseSeconds);
-            if (!alone) { i = last; continue; }
+            if (!IsAlone(model, i, last, smoothedRiseSeconds)) { i = last; continue; }
             double at = model.TimeOffsetSeconds + model.Events[i].RoundTripSeconds;
             double span = model.Events[last].RoundTripSeconds - model.Events[i].RoundTripSeconds;
             double start = at - half, end = at + span + half;
@@ -53,7 +75,7 @@ internal static class FullResolutionReview
             double logN = ModelSelection.LogSampleCount(local);
 
             // The spots as the smoothed data placed them, refitted with the instrument's sharpness: their places and
-            // sizes, and the rise (the smoothed data could not tell the instrument's rise from the smoothing), are free.
+            // sizes are free.
             var spotFit = ModelFitter.Fit(model, local, variance, FreeInWindow(model, start, end), Iterations, cancellation);
             trials++;
             double spotBic = ModelSelection.Criterion(spotFit, local, variance);
@@ -85,17 +107,70 @@ internal static class FullResolutionReview
                 if (bic < spotBic - margin && (winner is null || bic < winner.Value.Bic)) winner = (sectionFit, bic);
             }
             if (winner is null) { i = last; continue; }            if (winner is null) continue;
-            // Only the events are taken from the local fit: the rise and the level were fitted to a few samples.
-            model = new RunModel(model.Context, model.AmplitudeVolts, model.TimeOffsetSeconds, model.RiseSeconds,
-                winner.Value.Fit.Model.Events, model.OffsetVolts);
+            // Only the events are taken from the local fit: the level was fitted to a few samples.
+            model = model.WithEvents(winner.Value.Fit.Model.Events);
             changed = true;
             i++;
         }
         return changed ? model : null;
     }
 
-    /// <summary>The rise, the level and every event between <paramref name="start"/> and <paramref name="end"/> (aligned
-    /// time, s) free; the amplitude and the time offset are held (a few samples away from the incident edge cannot tell
+    /// <summary>
+    /// The reverse look: a short excursion of two boundaries that returns to the line's impedance, on its own, as the two
+    /// like spots at its ends that smoothing blurs into one (two kinks or connectors a rise or two apart; see
+    /// <see cref="ReactiveSections.ClusterAsSpots"/>). As many parameters as the section, but the section is the reading
+    /// the selection made: the spots must beat it by <see cref="OverturnMargin"/> on the unsmoothed samples (a short
+    /// section of other cable and a close pair of spots can come within a few units of each other there). True, with
+    /// <paramref name="model"/> updated, when they do.
+    /// </summary>
+    private static bool SectionAsSpots(ref RunModel model, int i, Func<double, double, FitData> window, double half,
+        double smoothedRiseSeconds, ref int trials, CancellationToken cancellation)
+    {
+        var current = model;
+        var spots = ReactiveSections.ClusterAsSpots(current, i, smoothedRiseSeconds)
+            .FirstOrDefault(c => c.Events.Count == current.Events.Count);
+        if (spots is null || !IsAlone(current, i, i + 1, smoothedRiseSeconds)) return false;
+        double start = current.TimeOffsetSeconds + current.Events[i].RoundTripSeconds - half;
+        double end = current.TimeOffsetSeconds + current.Events[i + 1].RoundTripSeconds + half;
+        FitData local;
+        try { local = window(start, end); }
+        catch (ArgumentException) { return false; }
+        double variance = ModelSelection.SampleVariance(local, current);
+        var sectionFit = ModelFitter.Fit(current, local, variance, FreeInWindow(current, start, end), LongIterations, cancellation);
+        double sectionBic = ModelSelection.Criterion(sectionFit, local, variance);
+        trials++;
+        // The smoothed fit stretches a pair of spots' decaying tails into a longer section, so the spots are also started
+        // closer together than its ends.
+        ModelFit? spotsFit = null;
+        double spotsBic = double.PositiveInfinity;
+        foreach (double share in SpotSeparationShares)
+        {
+            var events = spots.Events.ToList();
+            events[i + 1] = events[i + 1] with
+            {
+                RoundTripSeconds = events[i].RoundTripSeconds + share * (events[i + 1].RoundTripSeconds - events[i].RoundTripSeconds),
+            };
+            var start2 = spots.WithEvents(events);
+            var f = ModelFitter.Fit(start2, local, variance, FreeInWindow(start2, start, end), LongIterations, cancellation);
+            trials++;
+            double b = ModelSelection.Criterion(f, local, variance);
+            if (b < spotsBic) (spotsFit, spotsBic) = (f, b);
+        }
+        ModelSelection.DebugTrace?.Invoke($"full-resolution look at the section at {current.Events[i].RoundTripSeconds * 1e9:0.0} ns: "
+            + $"{local.Samples.Length} samples, bic {sectionBic:0.0}, as two spots {spotsBic:0.0}");
+        if (!(spotsBic < sectionBic - OverturnMargin)) return false;
+        model = current.WithEvents(spotsFit!.Model.Events);
+        return true;
+    }
+
+    /// <summary>True when events <paramref name="first"/>..<paramref name="last"/> have no other event within
+    /// <paramref name="riseSeconds"/> on either side.</summary>
+    private static bool IsAlone(RunModel model, int first, int last, double riseSeconds) =>
+        (first == 0 || model.Events[first].RoundTripSeconds - model.Events[first - 1].RoundTripSeconds > riseSeconds)
+        && (last + 1 == model.Events.Count || model.Events[last + 1].RoundTripSeconds - model.Events[last].RoundTripSeconds > riseSeconds);
+
+    /// <summary>The level and every event between <paramref name="start"/> and <paramref name="end"/> (aligned time, s)
+    /// free; the amplitude, the time offset and the rise are held (a few samples away from the incident edge cannot tell
     /// them from the events' sizes and places).</summary>
     private static bool[] FreeInWindow(RunModel model, double start, double end)
     {
@@ -110,6 +185,7 @@ internal static class FullResolutionReview
         var free = model.FreeMask(first, last, withLoss: false);
         free[RunModel.AmplitudeIndex] = false;
         free[RunModel.TimeOffsetIndex] = false;
+        free[RunModel.RiseIndex] = false;
         return free;
     }
 }

@@ -27,8 +27,8 @@ internal sealed class RunModel
     /// <summary>Number of global parameters (amplitude, time offset, rise, level offset) at the start of the vector.</summary>
     internal const int GlobalParameterCount = 4;
 
-    /// <summary>Indices of the amplitude and the time offset in <see cref="ToVector"/>.</summary>
-    internal const int AmplitudeIndex = 0, TimeOffsetIndex = 1;
+    /// <summary>Indices of the amplitude, the time offset and the rise in <see cref="ToVector"/>.</summary>
+    internal const int AmplitudeIndex = 0, TimeOffsetIndex = 1, RiseIndex = 2;
 
     /// <summary>Forward-model evaluations so far in this process (for cost measurements).</summary>
     internal static long SimulationCount;
