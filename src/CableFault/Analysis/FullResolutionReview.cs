@@ -28,15 +28,17 @@ internal static class FullResolutionReview
     private static readonly double[] SpotSeparationShares = [1, 0.5, 0.25];
 
     /// <summary>
-    /// Replaces spots of <paramref name="fit"/>'s model by sections where unsmoothed windows of the trace, cut by
-    /// <paramref name="window"/> (aligned-time start and end, s), say so by the information criterion. Returns the model
-    /// with the replacements (the caller refits it), or null when nothing changed.
+    /// Replaces spots of <paramref name="fit"/>'s model by sections, and short sections by pairs of spots (see
+    /// <see cref="SectionAsSpots"/>), where unsmoothed windows of the trace, cut by <paramref name="window"/> (aligned-time
+    /// start and end, s), say so by the information criterion. Returns the model with the replacements and the measured
+    /// rise (the caller refits it), or null when nothing changed.
     /// </summary>
     /// <param name="fit">The model fitted to the smoothed data.</param>
     /// <param name="window">Cuts the unsmoothed samples of the aligned trace between two times, s.</param>
     /// <param name="instrumentRiseSeconds">The instrument's 10–90 % rise, s.</param>
     /// <param name="smoothedRiseSeconds">Effective rise of the smoothed data the model was fitted to, s.</param>
     /// <param name="trials">Counts the fits made.</param>
+    /// <param name="cancellation">Stops the fits.</param>
     internal static RunModel? Review(ModelFit fit, Func<double, double, FitData> window, double instrumentRiseSeconds,
         double smoothedRiseSeconds, ref int trials, CancellationToken cancellation)
     {
@@ -106,7 +108,7 @@ internal static class FullResolutionReview
                 ModelSelection.DebugTrace?.Invoke($"  section of {tau * 1e9:0.00} ns start: bic {bic:0.0} against {spotBic:0.0}");
                 if (bic < spotBic - margin && (winner is null || bic < winner.Value.Bic)) winner = (sectionFit, bic);
             }
-            if (winner is null) { i = last; continue; }            if (winner is null) continue;
+            if (winner is null) { i = last; continue; }
             // Only the events are taken from the local fit: the level was fitted to a few samples.
             model = model.WithEvents(winner.Value.Fit.Model.Events);
             changed = true;

@@ -31,6 +31,11 @@ internal static class ResolutionRefinement
     /// tap) where the sharper data say so. <paramref name="fineRiseSeconds"/> and <paramref name="coarseRiseSeconds"/> are the effective
     /// rise times of the two data sets, s.
     /// </summary>
+    /// <param name="coarse">The selection's result on the strongly smoothed data.</param>
+    /// <param name="fine">The less smoothed data.</param>
+    /// <param name="fineRiseSeconds">Effective rise of <paramref name="fine"/>, s.</param>
+    /// <param name="coarseRiseSeconds">Effective rise of the selection's data, s.</param>
+    /// <param name="cancellation">Stops the fits.</param>
     /// <param name="fullResolution">Cuts unsmoothed samples of the aligned trace between two times, s, for
     /// <see cref="FullResolutionReview"/>; null skips that look.</param>
     /// <param name="instrumentRiseSeconds">The instrument's own rise, s.</param>
