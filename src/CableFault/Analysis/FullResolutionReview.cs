@@ -14,6 +14,11 @@ internal static class FullResolutionReview
     /// spot's (or a section's) whole response and the level on both sides of it.</summary>
     private const double WindowRiseTimes = 10;
 
+    /// <summary>Most internal samples a window's model run may need: the transform runs from the incident edge to the
+    /// window's end at the instrument's resolution, so a window far down a long record costs (and holds in the sweep
+    /// cache) as much as the whole record would; beyond this the look is skipped.</summary>
+    private const double MaximumTransformPoints = 1 << 16;
+
     /// <summary>Iteration limit of each local fit (warm started; few parameters are free).</summary>
     private const int Iterations = 15;
 
@@ -54,7 +59,7 @@ internal static class FullResolutionReview
         {
             if (model.Events[i].Element == RunModelElement.Boundary)
             {
-                if (SectionAsSpots(ref model, i, window, half, smoothedRiseSeconds, ref trials, cancellation))
+                if (SectionAsSpots(ref model, i, window, half, instrumentRiseSeconds, smoothedRiseSeconds, ref trials, cancellation))
                 {
                     changed = true;
                     i++;
@@ -70,9 +75,7 @@ internal static class FullResolutionReview
             double at = model.TimeOffsetSeconds + model.Events[i].RoundTripSeconds;
             double span = model.Events[last].RoundTripSeconds - model.Events[i].RoundTripSeconds;
             double start = at - half, end = at + span + half;
-            FitData local;
-            try { local = window(start, end); }
-            catch (ArgumentException) { i = last; continue; }
+            if (Cut(model, window, start, end, instrumentRiseSeconds) is not { } local) { i = last; continue; }
             double variance = ModelSelection.SampleVariance(local, model);
             double logN = ModelSelection.LogSampleCount(local);
 
@@ -109,8 +112,11 @@ internal static class FullResolutionReview
                 if (bic < spotBic - margin && (winner is null || bic < winner.Value.Bic)) winner = (sectionFit, bic);
             }
             if (winner is null) { i = last; continue; }
-            // Only the events are taken from the local fit: the level was fitted to a few samples.
-            model = model.WithEvents(winner.Value.Fit.Model.Events);
+            // Only the section is taken from the local fit: the level was fitted to a few samples, and a neighbour in the
+            // window to a cut through its own response.
+            var taken = winner.Value.Fit.Model.Events;
+            model = ReactiveSections.Replace(model, i, last, taken[i + 1].RoundTripSeconds - taken[i].RoundTripSeconds) is { } replaced
+                ? TakeTwo(replaced, taken, i) : model.WithEvents(taken);
             changed = true;
             i++;
         }
@@ -126,7 +132,7 @@ internal static class FullResolutionReview
     /// <paramref name="model"/> updated, when they do.
     /// </summary>
     private static bool SectionAsSpots(ref RunModel model, int i, Func<double, double, FitData> window, double half,
-        double smoothedRiseSeconds, ref int trials, CancellationToken cancellation)
+        double instrumentRiseSeconds, double smoothedRiseSeconds, ref int trials, CancellationToken cancellation)
     {
         var current = model;
         var spots = ReactiveSections.ClusterAsSpots(current, i, smoothedRiseSeconds)
@@ -134,9 +140,7 @@ internal static class FullResolutionReview
         if (spots is null || !IsAlone(current, i, i + 1, smoothedRiseSeconds)) return false;
         double start = current.TimeOffsetSeconds + current.Events[i].RoundTripSeconds - half;
         double end = current.TimeOffsetSeconds + current.Events[i + 1].RoundTripSeconds + half;
-        FitData local;
-        try { local = window(start, end); }
-        catch (ArgumentException) { return false; }
+        if (Cut(current, window, start, end, instrumentRiseSeconds) is not { } local) return false;
         double variance = ModelSelection.SampleVariance(local, current);
         var sectionFit = ModelFitter.Fit(current, local, variance, FreeInWindow(current, start, end), LongIterations, cancellation);
         double sectionBic = ModelSelection.Criterion(sectionFit, local, variance);
@@ -161,8 +165,30 @@ internal static class FullResolutionReview
         ModelSelection.DebugTrace?.Invoke($"full-resolution look at the section at {current.Events[i].RoundTripSeconds * 1e9:0.0} ns: "
             + $"{local.Samples.Length} samples, bic {sectionBic:0.0}, as two spots {spotsBic:0.0}");
         if (!(spotsBic < sectionBic - OverturnMargin)) return false;
-        model = current.WithEvents(spotsFit!.Model.Events);
+        model = TakeTwo(spots, spotsFit!.Model.Events, i);
         return true;
+    }
+
+    /// <summary>The unsmoothed window [<paramref name="start"/>, <paramref name="end"/>], or null when it holds too few
+    /// samples or a model run on it would need more than <see cref="MaximumTransformPoints"/> internal samples.</summary>
+    private static FitData? Cut(RunModel model, Func<double, double, FitData> window, double start, double end, double instrumentRiseSeconds)
+    {
+        FitData local;
+        try { local = window(start, end); }
+        catch (ArgumentException) { return null; }
+        double internalInterval = Math.Min(local.IntervalSeconds,
+            Simulation.StimulusSpectrum.MaximumInternalIntervalSeconds(Simulation.EdgeShape.Gaussian, instrumentRiseSeconds));
+        return (end - model.TimeOffsetSeconds) / internalInterval > MaximumTransformPoints ? null : local;
+    }
+
+    /// <summary><paramref name="model"/> with events <paramref name="i"/> and <paramref name="i"/> + 1 taken from
+    /// <paramref name="fitted"/>.</summary>
+    private static RunModel TakeTwo(RunModel model, IReadOnlyList<RunModelEvent> fitted, int i)
+    {
+        var events = model.Events.ToList();
+        events[i] = fitted[i];
+        events[i + 1] = fitted[i + 1];
+        return model.WithEvents(events);
     }
 
     /// <summary>True when events <paramref name="first"/>..<paramref name="last"/> have no other event within

@@ -155,6 +155,7 @@ internal static class ResolutionRefinement
         if (fullResolution is not null
             && FullResolutionReview.Review(best, fullResolution, instrumentRiseSeconds, fineRiseSeconds, ref trials, cancellation) is { } reviewed)
         {
+            ModelSelection.DebugTrace?.Invoke("refinement: the full-resolution look changed the model");
             best = ModelFitter.Fit(reviewed, fine, variance, cancellation: cancellation);
             changed = false;
             trials++;

@@ -35,13 +35,24 @@ internal sealed class SweepCache
 
     private static MediumKey KeyOf(Grid grid, CableMedium medium) => new(grid, medium.ImpedanceOhms, medium.VelocityFactor, medium.Loss);
 
+    /// <summary>Complex numbers held before the cache is emptied (2²⁴, 256 MB): a fit's usual grids never reach it
+    /// within <see cref="MaximumEntries"/>, but a lossy run on a long grid would hold gigabytes.</summary>
+    private const long MaximumComplexElements = 1L << 24;
+
     /// <summary>Entries added since the cache was last emptied (ConcurrentDictionary.Count takes every lock).</summary>
     private int _entries;
 
-    private void Trim()
+    /// <summary>Complex numbers in the entries added since the cache was last emptied.</summary>
+    private long _elements;
+
+    /// <summary>Empties the cache when one more entry of <paramref name="elements"/> complex numbers would take it past
+    /// either limit (emptying changes no result: entries are keyed by the exact inputs).</summary>
+    private void Trim(long elements)
     {
-        if (Interlocked.Increment(ref _entries) <= MaximumEntries) return;
+        long total = Interlocked.Add(ref _elements, elements);
+        if (Interlocked.Increment(ref _entries) <= MaximumEntries && total <= MaximumComplexElements) return;
         Interlocked.Exchange(ref _entries, 0);
+        Interlocked.Exchange(ref _elements, 0);
         _segments.Clear();
         _media.Clear();
         _stimuli.Clear();
@@ -63,7 +74,7 @@ internal sealed class SweepCache
             result.Edge[k] = StimulusSpectrum.Evaluate(shape, riseSeconds, s);
             result.Delay[k] = delay;
         }
-        Trim();
+        Trim(2L * grid.BinCount);
         return _stimuli.GetOrAdd(key, result);
     }
 
@@ -83,7 +94,7 @@ internal sealed class SweepCache
             bins.ZSeries[k] = z;
             bins.YShunt[k] = y;
         }
-        Trim();
+        Trim(4L * grid.BinCount);
         return _media.GetOrAdd(key, bins);
     }
 
@@ -104,7 +115,7 @@ internal sealed class SweepCache
             bins.B[k] = b;
             bins.C[k] = c;
         }
-        Trim();
+        Trim(3L * grid.BinCount);
         return _segments.GetOrAdd(key, bins);
     }
 }
