@@ -95,9 +95,7 @@ internal static class FullResolutionReview
             (ModelFit Fit, double Bic)? winner = null;
             var spotModel = spotFit.Model;
             double spotSpan = spotModel.Events[last].RoundTripSeconds - spotModel.Events[i].RoundTripSeconds;
-            // Fewer parameters than the spots need only not lose, as many must not lose, more must win by the margin.
-            int spotParameters = 2 * (last - i + 1);
-            double margin = spotParameters > 4 ? -ModelSelection.EvidenceMargin : spotParameters == 4 ? 0 : ModelSelection.EvidenceMargin;
+            double margin = ReactiveSections.SectionMargin(last - i + 1);
             foreach (double tau in new[] { spotSpan + 2 * instrumentRiseSeconds, spotSpan + smoothedRiseSeconds }.Distinct())
             {
                 if (ReactiveSections.Replace(spotModel, i, last, tau) is not { } candidate) continue;

@@ -26,6 +26,11 @@ internal static class ReactiveSections
         return last;
     }
 
+    /// <summary>BIC units by which a section (four parameters) must beat <paramref name="spotCount"/> spots (two each) it
+    /// replaces: fewer parameters need only not lose by the evidence margin, as many must not lose, more must win by it.</summary>
+    internal static double SectionMargin(int spotCount) =>
+        spotCount > 2 ? -ModelSelection.EvidenceMargin : spotCount == 2 ? 0 : ModelSelection.EvidenceMargin;
+
     /// <summary>True for a shunt capacitor or a series inductor.</summary>
     internal static bool IsReactive(RunModelElement element) =>
         element is RunModelElement.ShuntCapacitor or RunModelElement.SeriesInductor;

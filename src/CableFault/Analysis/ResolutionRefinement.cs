@@ -66,7 +66,7 @@ internal static class ResolutionRefinement
                 : ModelSelection.LocalExcess(best, fine, variance, m.TimeOffsetSeconds + m.Events[i].RoundTripSeconds, fineRiseSeconds);
             if (excess < 2 * logN + ModelSelection.EvidenceMargin) { i = last + 1; continue; }
             double span = m.Events[last].RoundTripSeconds - m.Events[i].RoundTripSeconds;
-            int spotParameters = 2 * (last - i + 1);
+            double margin = ReactiveSections.SectionMargin(last - i + 1);
             RunModelFit? winner = null;
             // Two starting lengths beyond the row's span: one sharp rise time (a section the sharper data resolve) and
             // half the coarse rise (the longest a section could be and still have looked lumped).
@@ -81,8 +81,6 @@ internal static class ResolutionRefinement
                 double length = fit.Model.Events[i + 1].RoundTripSeconds - fit.Model.Events[i].RoundTripSeconds;
                 if (length < MinimumSectionRiseTimes * fineRiseSeconds) continue;
                 double bic = Bic(fit);
-                // Four parameters against the spots' two each: fewer parameters need only not lose, more must win.
-                double margin = spotParameters > 4 ? -ModelSelection.EvidenceMargin : spotParameters == 4 ? 0 : ModelSelection.EvidenceMargin;
                 if (bic < bestBic - margin && (winner is null || bic < winner.Bic)) winner = new RunModelFit(fit, bic);
             }
             // A capacitive spot may also be a tap whose branch the coarse look could not resolve; a change of kind with
@@ -152,18 +150,17 @@ internal static class ResolutionRefinement
             changed = true;
             k++;
         }
+        var refit = best.Model;
         if (fullResolution is not null
             && FullResolutionReview.Review(best, fullResolution, instrumentRiseSeconds, fineRiseSeconds, ref trials, cancellation) is { } reviewed)
         {
-            ModelSelection.DebugTrace?.Invoke("refinement: the full-resolution look changed the model");
-            best = ModelFitter.Fit(reviewed, fine, variance, cancellation: cancellation);
-            changed = false;
-            trials++;
+            refit = reviewed;
+            changed = true;
         }
         ModelSelection.DebugTrace?.Invoke($"refinement: trials done, changed {changed}");
         if (changed)
         {
-            best = ModelFitter.Fit(best.Model, fine, variance, cancellation: cancellation);
+            best = ModelFitter.Fit(refit, fine, variance, cancellation: cancellation);
             bestBic = Bic(best);
             trials++;
         }

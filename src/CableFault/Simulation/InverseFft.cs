@@ -70,12 +70,9 @@ internal static class InverseFft
             {
                 for (int j = 0; j < halfSize; j++)
                 {
-                    // u ± v·w in real arithmetic, in System.Numerics.Complex's order (its operators were not inlined
-                    // here and their calls cost more than the butterfly).
-                    Complex w = twiddles[j * step], u = a[start + j], x2 = a[start + j + halfSize];
-                    double vr = x2.Real * w.Real - x2.Imaginary * w.Imaginary, vi = x2.Imaginary * w.Real + x2.Real * w.Imaginary;
-                    a[start + j] = new Complex(u.Real + vr, u.Imaginary + vi);
-                    a[start + j + halfSize] = new Complex(u.Real - vr, u.Imaginary - vi);
+                    Complex u = a[start + j], v = ComplexMath.Multiply(a[start + j + halfSize], twiddles[j * step]);
+                    a[start + j] = u + v;
+                    a[start + j + halfSize] = u - v;
                 }
             }
         }

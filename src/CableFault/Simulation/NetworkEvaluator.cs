@@ -144,7 +144,7 @@ internal sealed class NetworkEvaluator
                     var m = cache.Segment(grid, network.Media[op.Medium], op.Value);
                     Complex[] a = m.A, b = m.B, c = m.C;
                     for (int k = 0; k < bins; k++)
-                        Apply(n, d, k, a[k].Real, a[k].Imaginary, b[k].Real, b[k].Imaginary, c[k].Real, c[k].Imaginary);
+                        Apply(n, d, k, a[k], b[k], c[k]);
                     break;
                 }
                 case CompiledNetwork.OpKind.Junction:
@@ -181,14 +181,13 @@ internal sealed class NetworkEvaluator
         double v = medium.VelocityMetersPerSecond;
         Complex step = Complex.FromPolarCoordinates(1, -grid.DOmega * (2 * lengthMeters / v));
         double z = medium.ImpedanceOhms, y = 1 / z;
-        double er = 1, ei = 0;
+        Complex e = Complex.One;
         int previous = -2;
         // |γl| grows with the bin, so once a bin is past the small-argument bound every later one is too.
         bool small = true;
         for (int k = 0; k < grid.BinCount; k++)
         {
             var s = new Complex(grid.Sigma, k * grid.DOmega);
-            double ar, ai, br, bi, cr, ci;
             if (small)
             {
                 // The same operations as Propagation's γ = s/v times l.
@@ -198,38 +197,26 @@ internal sealed class NetworkEvaluator
                 {
                     var (a, b, c) = SegmentMatrix(gammaLength, z, s * medium.InductanceHenriesPerMeter * lengthMeters,
                         s * medium.CapacitanceFaradsPerMeter * lengthMeters);
-                    (ar, ai, br, bi, cr, ci) = (a.Real, a.Imaginary, b.Real, b.Imaginary, c.Real, c.Imaginary);
-                    Apply(n, d, k, ar, ai, br, bi, cr, ci);
+                    Apply(n, d, k, a, b, c);
                     continue;
                 }
             }
-            if ((k & 255) == 0 || previous != k - 1)
-            {
-                Complex e = Complex.Exp(-2 * (s / v * lengthMeters));
-                (er, ei) = (e.Real, e.Imaginary);
-            }
-            else (er, ei) = (er * step.Real - ei * step.Imaginary, ei * step.Real + er * step.Imaginary);
+            e = (k & 255) == 0 || previous != k - 1 ? Complex.Exp(-2 * (s / v * lengthMeters)) : ComplexMath.Multiply(e, step);
             previous = k;
-            // Written out in real arithmetic (the operations of System.Numerics.Complex, in its order): the complex
-            // operators were not inlined here and their calls were a large share of a model run.
-            double shr = (1 - er) * 0.5, shi = -ei * 0.5;
-            ar = (1 + er) * 0.5;
-            ai = ei * 0.5;
-            br = shr * z;
-            bi = shi * z;
-            cr = shr * y;
-            ci = shi * y;
-            Apply(n, d, k, ar, ai, br, bi, cr, ci);
+            // A = (1 + e)/2, B = Z_c·sinh, C = sinh/Z_c with sinh = (1 − e)/2, in the operations (and order) of
+            // System.Numerics.Complex's operators.
+            double shr = (1 - e.Real) * 0.5, shi = -e.Imaginary * 0.5;
+            Apply(n, d, k, new Complex((1 + e.Real) * 0.5, e.Imaginary * 0.5), new Complex(shr * z, shi * z), new Complex(shr * y, shi * y));
         }
     }
 
     /// <summary>(N, D) ← (A·N + B·D, C·N + A·D) at bin <paramref name="k"/>, then <see cref="Normalise"/>.</summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    private static void Apply(Complex[] n, Complex[] d, int k, double ar, double ai, double br, double bi, double cr, double ci)
+    private static void Apply(Complex[] n, Complex[] d, int k, Complex a, Complex b, Complex c)
     {
-        double nr = n[k].Real, ni = n[k].Imaginary, dr = d[k].Real, di = d[k].Imaginary;
-        var newN = new Complex((ar * nr - ai * ni) + (br * dr - bi * di), (ai * nr + ar * ni) + (bi * dr + br * di));
-        var newD = new Complex((cr * nr - ci * ni) + (ar * dr - ai * di), (ci * nr + cr * ni) + (ai * dr + ar * di));
+        Complex n0 = n[k], d0 = d[k];
+        var newN = ComplexMath.Multiply(a, n0) + ComplexMath.Multiply(b, d0);
+        var newD = ComplexMath.Multiply(c, n0) + ComplexMath.Multiply(a, d0);
         Normalise(ref newN, ref newD);
         n[k] = newN;
         d[k] = newD;
