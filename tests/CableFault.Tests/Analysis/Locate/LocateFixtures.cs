@@ -42,6 +42,23 @@ internal static class LocateFixtures
         return ForwardModel.Simulate(network, settings);
     }
 
+    /// <summary>Locates <paramref name="network"/> simulated on a cable of its own rather than the fixture cable: the
+    /// source matched to <paramref name="cable"/>, <paramref name="sampleCount"/> samples six per rise, and the cable's VF
+    /// and Z₀ given to locate.</summary>
+    internal static LocateResult LocateOnCable(CableNetwork network, CableMedium cable, double riseSeconds, int sampleCount,
+        double noiseVolts, int seed)
+    {
+        var settings = InstrumentSettings.DefaultFor(network, riseSeconds) with
+        {
+            SourceImpedanceOhms = cable.ImpedanceOhms, SampleIntervalSeconds = riseSeconds / 6, SampleCount = sampleCount,
+            NoiseRmsVolts = noiseVolts, NoiseSeed = seed,
+        };
+        return Locator.Locate(ForwardModel.Simulate(network, settings), new LocateOptions
+        {
+            VelocityFactor = cable.VelocityFactor, ImpedanceOhms = cable.ImpedanceOhms, SourceImpedanceOhms = cable.ImpedanceOhms,
+        });
+    }
+
     internal static LocateOptions Options(double vfSigma = 0.02) =>
         new() { VelocityFactor = VelocityFactor, VelocityFactorRelativeSigma = vfSigma, ImpedanceOhms = ImpedanceOhms };
 

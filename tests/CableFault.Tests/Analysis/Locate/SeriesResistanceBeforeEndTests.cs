@@ -1,7 +1,6 @@
 using CableFault.Analysis;
 using CableFault.Cables;
 using CableFault.Networks;
-using CableFault.Simulation;
 using static CableFault.Tests.Analysis.Locate.LocateFixtures;
 
 namespace CableFault.Tests.Analysis.Locate;
@@ -26,12 +25,7 @@ public class SeriesResistanceBeforeEndTests
         var network = Run(new CableSegment(JointAt, pair), new SeriesResistor(seriesOhms), new CableSegment(EndAt - JointAt, pair),
             RunEnd.Resistor(endOhms));
         // 3 000 rise times of record: the selection works on smoothed data, where the edge's width is barely seen.
-        var settings = InstrumentSettings.DefaultFor(network, RiseSeconds) with
-        {
-            SourceImpedanceOhms = PairOhms, SampleIntervalSeconds = RiseSeconds / 6, SampleCount = 18000, NoiseRmsVolts = 0.6e-3, NoiseSeed = seed,
-        };
-        var result = Locator.Locate(ForwardModel.Simulate(network, settings),
-            new LocateOptions { VelocityFactor = PairVelocityFactor, ImpedanceOhms = PairOhms, SourceImpedanceOhms = PairOhms });
+        var result = LocateOnCable(network, pair, RiseSeconds, 18000, 0.6e-3, seed);
         string found = Describe(result);
 
         Assert.True(result.Events.Count == 2, $"expected the joint and the end; found: {found}");

@@ -1,7 +1,6 @@
 using CableFault.Analysis;
 using CableFault.Cables;
 using CableFault.Networks;
-using CableFault.Simulation;
 using static CableFault.Tests.Analysis.Locate.LocateFixtures;
 
 namespace CableFault.Tests.Analysis.Locate;
@@ -23,12 +22,7 @@ public class SpotPairTests
         var cable = new CableMedium(PairOhms, PairVelocityFactor);
         var network = Run(new CableSegment(firstAt, cable), new SeriesInductor(inductanceHenries), new CableSegment(secondAt - firstAt, cable),
             new SeriesInductor(inductanceHenries), new CableSegment(endAt - secondAt, cable), RunEnd.Open);
-        var settings = InstrumentSettings.DefaultFor(network, RiseSeconds) with
-        {
-            SourceImpedanceOhms = PairOhms, SampleIntervalSeconds = RiseSeconds / 6, SampleCount = 16000, NoiseRmsVolts = 1.7e-3, NoiseSeed = 5,
-        };
-        var result = Locator.Locate(ForwardModel.Simulate(network, settings),
-            new LocateOptions { VelocityFactor = PairVelocityFactor, ImpedanceOhms = PairOhms, SourceImpedanceOhms = PairOhms });
+        var result = LocateOnCable(network, cable, RiseSeconds, 16000, 1.7e-3, 5);
         string found = Describe(result);
 
         var spots = result.Events.Where(e => e.Kind == EventKind.Inductive).ToList();
