@@ -8,6 +8,7 @@ using CableFault.Benchmarks;
 //         dotnet publish src/CableFault.Cli -c Release -r linux-x64 -p:PublishAot=true -o out/native)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- accuracy [--cases N] [--out FILE]   (locate accuracy, Accuracy/)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- diagnose FILE VF Z0 [CABLE [SOURCE_OHMS]] (locate one trace file, every hypothesis shown)
+//   dotnet run -c Release --project tests/CableFault.Benchmarks -- speed-traces [DIR] (write the locate speed traces, to profile by hand)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- batch [COUNT] (batch locate over COUNT traces, 1 vs 2 workers)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- history [COUNT] (run history: list and check with COUNT stored traces, default 10 000)
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- --filter '*'   (any BenchmarkDotNet arguments)
@@ -25,6 +26,9 @@ switch (mode)
         return HistoryBenchmark.Run(args.Skip(1).ToArray());
     case "accuracy":
         return CableFault.Benchmarks.Accuracy.AccuracyBenchmark.Run(args.Skip(1).ToArray());
+    case "speed-traces":
+        CableFault.Benchmarks.Accuracy.LocateSpeed.WriteTraces(args.Length > 1 ? args[1] : "speed-traces");
+        break;
     case "diagnose":
         return CableFault.Benchmarks.Accuracy.TraceDiagnosis.Run(args.Skip(1).ToArray());
     default:

@@ -68,14 +68,7 @@ public static class LocateSpeed
         {
             foreach (var scenario in Scenarios())
             {
-                var settings = new InstrumentSettings
-                {
-                    RiseTimeSeconds = scenario.RiseSeconds, SampleIntervalSeconds = scenario.IntervalSeconds, SampleCount = SampleCount,
-                    PreTriggerSeconds = 5e-9, NoiseRmsVolts = 1e-3, NoiseSeed = 7,
-                };
-                var trace = ForwardModel.Simulate(scenario.Network, settings);
-                string file = Path.Combine(folder, scenario.Network.Name + ".csv");
-                using (var stream = File.Create(file)) TraceCsvWriter.Write(trace, stream);
+                var (trace, file) = WriteTrace(scenario, folder);
 
                 var inProcess = new List<double>();
                 int events = 0;
@@ -104,6 +97,32 @@ public static class LocateSpeed
             try { Directory.Delete(folder, true); } catch (IOException) { }
         }
         return (traces, Median(all), allNative.Count > 0 ? Median(allNative) : null);
+    }
+
+    /// <summary>Simulates a scenario's trace and writes it as CSV into <paramref name="folder"/>.</summary>
+    private static (Trace Trace, string File) WriteTrace(Scenario scenario, string folder)
+    {
+        var settings = new InstrumentSettings
+        {
+            RiseTimeSeconds = scenario.RiseSeconds, SampleIntervalSeconds = scenario.IntervalSeconds, SampleCount = SampleCount,
+            PreTriggerSeconds = 5e-9, NoiseRmsVolts = 1e-3, NoiseSeed = 7,
+        };
+        var trace = ForwardModel.Simulate(scenario.Network, settings);
+        string file = Path.Combine(folder, scenario.Network.Name + ".csv");
+        using (var stream = File.Create(file)) TraceCsvWriter.Write(trace, stream);
+        return (trace, file);
+    }
+
+    /// <summary>Writes the timed traces into <paramref name="folder"/> (for profiling one by hand) and prints each
+    /// file with its CLI cable arguments.</summary>
+    public static void WriteTraces(string folder)
+    {
+        Directory.CreateDirectory(folder);
+        foreach (var scenario in Scenarios())
+        {
+            var (_, file) = WriteTrace(scenario, folder);
+            Console.WriteLine($"{file} {string.Join(' ', scenario.CableArguments)}   # {scenario.Name}");
+        }
     }
 
     private static double Median(List<double> values)
