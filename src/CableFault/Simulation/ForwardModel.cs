@@ -169,12 +169,18 @@ public static class ForwardModel
             transformed = spectrum;
         }
         var samples = new double[settings.SampleCount];
-        for (int i = 0; i < samples.Length; i++)
+        if (cache is not null)
         {
-            int index = shift + i * oversample;
-            double t = index * dt;
-            samples[i] = Math.Exp(sigma * t) * transformed[index] / period;
+            double[] undamping = cache.Undamping(sigma, dt, shift, oversample, samples.Length);
+            for (int i = 0; i < samples.Length; i++) samples[i] = undamping[i] * transformed[shift + i * oversample] / period;
         }
+        else
+            for (int i = 0; i < samples.Length; i++)
+            {
+                int index = shift + i * oversample;
+                double t = index * dt;
+                samples[i] = Math.Exp(sigma * t) * transformed[index] / period;
+            }
         if (pooled is not null) SweepBuffers<double>.Return(pooled);
         return samples;
     }

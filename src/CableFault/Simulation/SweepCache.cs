@@ -23,7 +23,9 @@ internal sealed class SweepCache
 
     private readonly record struct SegmentKey(MediumKey Medium, double LengthMeters);
 
-    private readonly record struct StimulusKey(Grid Grid, EdgeShape Shape, double RiseSeconds, double EdgeCentreSeconds);
+    private readonly record struct EdgeKey(Grid Grid, EdgeShape Shape, double RiseSeconds);
+
+    private readonly record struct DelayKey(Grid Grid, double EdgeCentreSeconds);
 
     internal sealed record MediumBins(Complex[] Gamma, Complex[] Zc, Complex[] ZSeries, Complex[] YShunt);
 
@@ -31,7 +33,12 @@ internal sealed class SweepCache
 
     private readonly ConcurrentDictionary<MediumKey, MediumBins> _media = new();
     private readonly ConcurrentDictionary<SegmentKey, SegmentBins> _segments = new();
-    private readonly ConcurrentDictionary<StimulusKey, (Complex[] Edge, Complex[] Delay)> _stimuli = new();
+    private readonly ConcurrentDictionary<EdgeKey, Complex[]> _edges = new();
+    private readonly ConcurrentDictionary<DelayKey, Complex[]> _delays = new();
+
+    private readonly record struct UndampingKey(double Sigma, double IntervalSeconds, int Shift, int Stride, int Count);
+
+    private readonly ConcurrentDictionary<UndampingKey, double[]> _undamping = new();
 
     private static MediumKey KeyOf(Grid grid, CableMedium medium) => new(grid, medium.ImpedanceOhms, medium.VelocityFactor, medium.Loss);
 
@@ -55,15 +62,45 @@ internal sealed class SweepCache
         Interlocked.Exchange(ref _elements, 0);
         _segments.Clear();
         _media.Clear();
-        _stimuli.Clear();
+        _edges.Clear();
+        _delays.Clear();
+        _undamping.Clear();
     }
 
-    /// <summary>E(s) and e^(−s·t_c) per bin, computed as <see cref="ForwardModel"/> does.</summary>
-    internal (Complex[] Edge, Complex[] Delay) Stimulus(Grid grid, EdgeShape shape, double riseSeconds, double edgeCentreSeconds)
+    /// <summary>e^(σt) at each kept sample t = (<paramref name="shift"/> + i·<paramref name="stride"/>)·Δt, computed as
+    /// <see cref="ForwardModel"/> does: the factor that undoes the contour's damping, the same for every run on a grid
+    /// whose edge sits at the same internal sample.</summary>
+    internal double[] Undamping(double sigma, double intervalSeconds, int shift, int stride, int count)
     {
-        var key = new StimulusKey(grid, shape, riseSeconds, edgeCentreSeconds);
-        if (_stimuli.TryGetValue(key, out var cached)) return cached;
-        var result = (Edge: new Complex[grid.BinCount], Delay: new Complex[grid.BinCount]);
+        var key = new UndampingKey(sigma, intervalSeconds, shift, stride, count);
+        if (_undamping.TryGetValue(key, out var cached)) return cached;
+        var factors = new double[count];
+        for (int i = 0; i < count; i++) factors[i] = Math.Exp(sigma * ((shift + i * stride) * intervalSeconds));
+        // Real numbers: half the size of a complex entry.
+        Trim((count + 1) / 2);
+        return _undamping.GetOrAdd(key, factors);
+    }
+
+    /// <summary>E(s) and e^(−s·t_c) per bin, computed as <see cref="ForwardModel"/> does. Kept apart: a change of the
+    /// edge's time (the time-offset column of a Jacobian) keeps E, a change of its rise keeps the delay.</summary>
+    internal (Complex[] Edge, Complex[] Delay) Stimulus(Grid grid, EdgeShape shape, double riseSeconds, double edgeCentreSeconds) =>
+        (Edge(grid, shape, riseSeconds), Delay(grid, edgeCentreSeconds));
+
+    private Complex[] Edge(Grid grid, EdgeShape shape, double riseSeconds)
+    {
+        var key = new EdgeKey(grid, shape, riseSeconds);
+        if (_edges.TryGetValue(key, out var cached)) return cached;
+        var edge = new Complex[grid.BinCount];
+        for (int k = 0; k < grid.BinCount; k++) edge[k] = StimulusSpectrum.Evaluate(shape, riseSeconds, new Complex(grid.Sigma, k * grid.DOmega));
+        Trim(grid.BinCount);
+        return _edges.GetOrAdd(key, edge);
+    }
+
+    private Complex[] Delay(Grid grid, double edgeCentreSeconds)
+    {
+        var key = new DelayKey(grid, edgeCentreSeconds);
+        if (_delays.TryGetValue(key, out var cached)) return cached;
+        var delays = new Complex[grid.BinCount];
         Complex delayStep = Complex.FromPolarCoordinates(1, -grid.DOmega * edgeCentreSeconds);
         Complex delay = Complex.One;
         for (int k = 0; k < grid.BinCount; k++)
@@ -71,11 +108,10 @@ internal sealed class SweepCache
             var s = new Complex(grid.Sigma, k * grid.DOmega);
             if ((k & 255) == 0) delay = Complex.Exp(-s * edgeCentreSeconds);
             else delay *= delayStep;
-            result.Edge[k] = StimulusSpectrum.Evaluate(shape, riseSeconds, s);
-            result.Delay[k] = delay;
+            delays[k] = delay;
         }
-        Trim(2L * grid.BinCount);
-        return _stimuli.GetOrAdd(key, result);
+        Trim(grid.BinCount);
+        return _delays.GetOrAdd(key, delays);
     }
 
     /// <summary>γ, Z_c, Z′ and Y′ of a medium per bin, as <see cref="NetworkEvaluator"/> computes them.</summary>
