@@ -10,6 +10,11 @@ internal static class EventClassifier
     /// rarely shows the full +1).</summary>
     internal const double EndReflection = 0.85;
 
+    /// <summary>Smallest |ρ| of an impedance rise or drop that is listed as an event: 0.5 %, a quarter of an ohm on
+    /// 50 Ω, well inside the ±2 Ω tolerance of a 50 Ω coax (common practice; the tolerance is from memory). Smaller steps
+    /// are the cable's own variation, or a step generator settling slowly after its edge, not a place to dig.</summary>
+    internal const double MinimumListedStepReflection = 0.005;
+
     /// <summary>Peak signature over noise below which the kind is not named (an event this faint is found, not read).</summary>
     internal const double MinimumKindSignalToNoise = 5;
 
@@ -85,6 +90,24 @@ internal static class EventClassifier
         };
         if (weak && kind is not (EventKind.Open or EventKind.Short)) kind = EventKind.Unknown;
         return (kind, rho, impedance, value, Math.Clamp(confidence, 0, 1));
+    }
+
+    /// <summary>
+    /// |ρ| an impedance step or a lumped spot shows at the instrument's own rise, or null for other elements: a step
+    /// (Z − Z_prev)/(Z + Z_prev); a shunt C or series L the peak of −τ·dv/dt on a Gaussian edge, τ/(σ√(2π)) = 1.0225·τ/t_r
+    /// with τ = Z·C/2 or L/2Z (DESIGN.md §2). Smoothing of a long record would shrink a spot's fitted signature; this does not.
+    /// </summary>
+    internal static double? SeenReflection(RunModelElement element, double value, double impedanceBeforeOhms, double riseSeconds)
+    {
+        double z = impedanceBeforeOhms;
+        double PeakOfSpot(double tau) => tau * 2.5631031310892007 / (Math.Sqrt(2 * Math.PI) * riseSeconds);
+        return element switch
+        {
+            RunModelElement.Boundary => (value - z) / (value + z),
+            RunModelElement.ShuntCapacitor => PeakOfSpot(z * value / 2),
+            RunModelElement.SeriesInductor => PeakOfSpot(value / (2 * z)),
+            _ => null,
+        };
     }
 
     /// <summary>True when the event is too faint, or its size too loosely known, for its kind to be named (it is then

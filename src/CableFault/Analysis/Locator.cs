@@ -145,6 +145,7 @@ public static class Locator
         var weak = Enumerable.Range(0, model.Events.Count).Select(i => EventClassifier.IsWeak(model.Events[i].Element, SigmaLog(i),
             selection.Events[i].PeakSignatureVolts, Math.Sqrt(selection.VarianceVolts2))).ToArray();
         var located = new List<LocatedEvent>();
+        var faint = new List<LocatedEvent>();
         for (int i = 0; i < model.Events.Count; i++)
         {
             var e = model.Events[i];
@@ -161,7 +162,16 @@ public static class Locator
             double t = e.RoundTripSeconds - offset;
             double d = v * t / 2;
             double sigmaD = Math.Sqrt(Math.Pow(v * sigmaT / 2, 2) + Math.Pow(d * options.VelocityFactorRelativeSigma, 2));
-            located.Add(new LocatedEvent(d, sigmaD, kind, rho, impedance, value, confidence, t));
+            var locatedEvent = new LocatedEvent(d, sigmaD, kind, rho, impedance, value, confidence, t);
+            // (Inside the blind zone the rule below speaks for it.)
+            if (kind is not (EventKind.Open or EventKind.Short or EventKind.Termination) && t + offset >= blindSeconds
+                && EventClassifier.SeenReflection(e.Element, e.Value, RunModelBuilder.ImpedanceBefore(model, i), rise) is double seen
+                && Math.Abs(seen) < EventClassifier.MinimumListedStepReflection)
+            {
+                faint.Add(locatedEvent);
+                continue;
+            }
+            located.Add(locatedEvent);
             if (e.Element == RunModelElement.ShuntResistor && kind == EventKind.Tap)
                 warnings.Add(string.Create(CultureInfo.InvariantCulture,
                     $"tap at {d:0.###} m: it reflects like {e.Value:0.#} Ω across the line, i.e. a branch into a matched load; if no tap is fitted there, it is a leak of that resistance."));
@@ -189,6 +199,18 @@ public static class Locator
             located.Remove(inside);
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
                 $"{EventKindNames.ToJsonName(inside.Kind).Replace('_', ' ')} (ρ {inside.Reflection:+0.###;-0.###}) at the instrument's connector, inside the blind zone ({blindMeters:0.###} m): the cable or connector against the instrument, not located."));
+        }
+
+        // An impedance change or spot this small is within the cable's own variation along its length, and a step
+        // generator that settles slowly after its edge looks the same (a row of them near the connector): said, not listed.
+        if (faint.Count > 0)
+        {
+            faint.Sort((a, b) => a.DistanceMeters.CompareTo(b.DistanceMeters));
+            string where = faint.Count <= 3
+                ? "at " + string.Join(", ", faint.Select(e => e.DistanceMeters.ToString("0.##", CultureInfo.InvariantCulture))) + " m"
+                : string.Create(CultureInfo.InvariantCulture, $"between {faint[0].DistanceMeters:0.##} and {faint[^1].DistanceMeters:0.##} m");
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"{faint.Count} impedance change(s) or spot(s) under {EventClassifier.MinimumListedStepReflection * 100:0.#} % (|ρ| < {EventClassifier.MinimumListedStepReflection}) {where} not listed: within a cable's own impedance variation, or the instrument's step settling slowly."));
         }
 
         if (estimateLoss)
