@@ -35,6 +35,10 @@ public static class LocateCommand
         var png = CommonOptions.Png("the trace and impedance profile with the events marked (one trace only)");
         var svg = CommonOptions.Svg("the trace and impedance profile with the events marked (one trace only)");
         var eventsCsv = new Option<FileInfo?>("--events-csv") { Description = "Also write every event of every trace to this CSV file (safe to open in a spreadsheet)." };
+        var fitSettling = new Option<bool>("--fit-settling")
+        {
+            Description = "Also fit a slow settling of the instrument's step (a creep of a per cent or so over tens of ns after the edge) and read every echo with it; for instruments whose step into a matched load keeps creeping.",
+        };
         var jobs = new Option<int?>("--jobs") { Description = $"Traces worked on at once when several are given (default: the number of cores, here {BatchRunner.DefaultDegree})." };
 
         var command = new Command("locate",
@@ -44,7 +48,7 @@ public static class LocateCommand
             "  cablefault locate traces/quillon-bay --events-csv events.csv\n" +
             "  cablefault locate traces/quillon-bay/mast-feeder-damaged.csv --cable RG-213 --as-built traces/quillon-bay/mast-feeder.asbuilt.json")
         {
-            traces, units, format, offset, window, png, svg, eventsCsv, jobs,
+            traces, units, format, offset, window, png, svg, eventsCsv, fitSettling, jobs,
         };
         cable.AddTo(command);
         field.AddTo(command);
@@ -79,7 +83,10 @@ public static class LocateCommand
                     throw new InputException(BatchRunner.Named(e.Message, path, loaded.Name), e);
                 }
                 foreach (string warning in loaded.Warnings.Concat(settings.Warnings)) warn(warning);
-                var options = settings.ToLocateOptions() with { TimeZeroOffsetSeconds = offsetSeconds };
+                var options = settings.ToLocateOptions() with
+                {
+                    TimeZeroOffsetSeconds = offsetSeconds, EstimateSettling = parsed.GetValue(fitSettling),
+                };
                 // Both ends: the VF cancels, so the σ's must be the timing σ's alone.
                 if (timingSigmaOnly) options = options with { VelocityFactorRelativeSigma = 0 };
                 var lead = field.Lead(parsed, unit, library, settings.VelocityFactor);

@@ -113,6 +113,15 @@ public static class Locator
             context = context with { Loss = estimatedLoss, EstimateLoss = estimatedLoss is not null };
             initial = initial.WithContext(context);
         }
+        if (options.EstimateSettling && SettlingEstimation.Estimate(initial, data, options.CancellationToken) is var (fraction, settlingSeconds))
+        {
+            context = context with { SettlingFraction = fraction, SettlingSeconds = settlingSeconds };
+            initial = initial.WithContext(context);
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"the instrument's step settles slowly: {fraction * 100:+0.#;-0.#} % of it over a time constant of {settlingSeconds * 1e9:0.#} ns after the edge (fitted from the trace); every echo was read with the same settling."));
+        }
+        else if (options.EstimateSettling)
+            warnings.Add("the instrument's step was read as settling at once: the trace shows no slow settling the fit can tell.");
         ModelSelection.DebugTrace?.Invoke($"stage: selection on {data.Samples.Length} samples");
         var selection = ModelSelection.Select(initial, data, riseEffective, options.CancellationToken);
         if (data.FilterSigmaSeconds > 0)

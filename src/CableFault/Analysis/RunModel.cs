@@ -62,11 +62,18 @@ internal sealed class RunModel
     /// <summary>Events in order of round-trip time (relative to the incident edge).</summary>
     internal IReadOnlyList<RunModelEvent> Events { get; }
 
+    /// <summary>Largest estimated settling fraction, in units of its scale (10 %): beyond that the step is not a step.</summary>
+    private const double SettlingFractionLimitScales = 10;
+
     /// <summary>Parameters of an estimated loss, at the end of <see cref="ToVector"/>.</summary>
     internal const int LossParameterCount = 2;
 
     /// <summary>Number of parameters in <see cref="ToVector"/>.</summary>
-    internal int ParameterCount => GlobalParameterCount + Events.Sum(e => e.HasValue ? 2 : 1) + (Context.EstimateLoss ? LossParameterCount : 0);
+    internal int ParameterCount => GlobalParameterCount + Events.Sum(e => e.HasValue ? 2 : 1) + (Context.EstimateLoss ? LossParameterCount : 0)
+        + (Context.EstimateSettling ? SettlingParameterCount : 0);
+
+    /// <summary>Parameters of an estimated settling of the step, at the very end of <see cref="ToVector"/>.</summary>
+    internal const int SettlingParameterCount = 2;
 
     /// <summary>The same run read with other cable settings.</summary>
     internal RunModel WithContext(RunModelContext context) =>
@@ -113,6 +120,12 @@ internal sealed class RunModel
             u.Add(loss.SkinLossNepersPerMeterPerRootHertz / RunModelContext.SkinLossScale);
             u.Add(loss.DcResistanceOhmsPerMeter / RunModelContext.DcResistanceScale);
         }
+        if (c.EstimateSettling)
+        {
+            // The fraction is signed (a step may creep up or sag back); the time constant's logarithm, in rise times.
+            u.Add(c.SettlingFraction / RunModelContext.SettlingFractionScale);
+            u.Add(Math.Log(c.SettlingSeconds / c.ReferenceRiseSeconds));
+        }
         return u.ToArray();
     }
 
@@ -131,9 +144,15 @@ internal sealed class RunModel
         if (c.EstimateLoss)
         {
             double skin = Math.Min(Math.Abs(u[k++]), RunModelContext.MaximumLossScales) * RunModelContext.SkinLossScale;
-            double dc = Math.Min(Math.Abs(u[k]), RunModelContext.MaximumLossScales) * RunModelContext.DcResistanceScale;
+            double dc = Math.Min(Math.Abs(u[k++]), RunModelContext.MaximumLossScales) * RunModelContext.DcResistanceScale;
             c = c with { Loss = new CableLossModel(skin, 0, dc) };
         }
+        if (c.EstimateSettling)
+            c = c with
+            {
+                SettlingFraction = Math.Clamp(u[k++], -SettlingFractionLimitScales, SettlingFractionLimitScales) * RunModelContext.SettlingFractionScale,
+                SettlingSeconds = Math.Exp(Math.Clamp(u[k], 0, 12)) * c.ReferenceRiseSeconds,
+            };
         return new RunModel(c, u[0] * c.ReferenceAmplitudeVolts, u[1] * c.ReferenceRiseSeconds,
             Math.Exp(Math.Clamp(u[2], -5, 5)) * c.ReferenceRiseSeconds, events, u[3] * c.ReferenceAmplitudeVolts);
     }
@@ -153,8 +172,10 @@ internal sealed class RunModel
             free[k] = true;
             if (Events[i].HasValue) free[k + 1] = true;
         }
+        int settling = Context.EstimateSettling ? SettlingParameterCount : 0;
         if (withLoss && Context.EstimateLoss)
-            for (int k = free.Length - LossParameterCount; k < free.Length; k++) free[k] = true;
+            for (int k = free.Length - settling - LossParameterCount; k < free.Length - settling; k++) free[k] = true;
+        for (int k = free.Length - settling; k < free.Length; k++) free[k] = true;
         return free;
     }
 
@@ -235,6 +256,8 @@ internal sealed class RunModel
             // Negative when the data start after the incident edge (a window cut from the middle of the record): the
             // forward model then starts its samples that long after the edge.
             PreTriggerSeconds = TimeOffsetSeconds - data.StartTimeSeconds,
+            SettlingFraction = Context.SettlingFraction,
+            SettlingTimeConstantSeconds = Context.SettlingSeconds,
         };
         var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings, data.Cache);
         if (OffsetVolts != 0)

@@ -12,9 +12,19 @@ namespace CableFault.Analysis;
 /// <param name="ReferenceAmplitudeVolts">Scale of the amplitude parameter (the measured incident step), V.</param>
 /// <param name="EstimateLoss">True when the loss was not given: <see cref="Loss"/> is then an estimate, and its two
 /// coefficients are parameters of the run model (see <see cref="RunModel.ToVector"/>).</param>
+/// <param name="SettlingFraction">Part of the instrument's step that settles slowly after its edge (see
+/// <see cref="Simulation.InstrumentSettings.SettlingFraction"/>); 0 for an edge that settles at once.</param>
+/// <param name="SettlingSeconds">Time constant of that settling, s.</param>
+/// <param name="EstimateSettling">True while the settling's two numbers are parameters of the run model (the probe of
+/// <see cref="SettlingEstimation"/>).</param>
 internal sealed record RunModelContext(double VelocityFactor, double ImpedanceOhms, double SourceImpedanceOhms,
-    CableLossModel? Loss, double ReferenceRiseSeconds, double ReferenceAmplitudeVolts, bool EstimateLoss = false)
+    CableLossModel? Loss, double ReferenceRiseSeconds, double ReferenceAmplitudeVolts, bool EstimateLoss = false,
+    double SettlingFraction = 0, double SettlingSeconds = 0, bool EstimateSettling = false)
 {
+    /// <summary>Scale of an estimated settling fraction: 1 % of the step (common practice for a step generator's creep;
+    /// from memory).</summary>
+    internal const double SettlingFractionScale = 0.01;
+
     /// <summary>Scale of the estimated skin-effect coefficient: 10 dB/100 m at 100 MHz (a mid-size coax; common practice),
     /// in Np/m/√Hz.</summary>
     internal const double SkinLossScale = 10.0 / 100 * CableLossModel.NepersPerDecibel / 1e4;

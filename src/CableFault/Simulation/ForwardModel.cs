@@ -122,7 +122,8 @@ public static class ForwardModel
             int bins = 0;
             while (bins <= m / 2 && !StimulusSpectrum.IsNegligible(settings.EdgeShape, rise, new Complex(sigma, bins * dOmega))) bins++;
             var grid = new SweepCache.Grid(m, sigma, dOmega, bins);
-            var (edge, delays) = cache.Stimulus(grid, settings.EdgeShape, rise, edgeCentre);
+            var (edge, delays) = cache.Stimulus(grid, settings.EdgeShape, rise, edgeCentre, settings.SettlingFraction,
+                settings.SettlingTimeConstantSeconds);
             var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid);
             // The spectrum overwrites N bin by bin (each bin reads only its own N and D).
             var ys = ns;
@@ -158,7 +159,10 @@ public static class ForwardModel
                 else delay *= delayStep;
                 var (n, d) = evaluator.Evaluate(s);
                 Complex h = n / (zs * d + n);
-                Complex y = h * 2 * amplitude * StimulusSpectrum.Evaluate(settings.EdgeShape, rise, s) * delay / s;
+                Complex edge = StimulusSpectrum.Evaluate(settings.EdgeShape, rise, s);
+                if (settings.SettlingFraction != 0)
+                    edge *= StimulusSpectrum.Settling(settings.SettlingFraction, settings.SettlingTimeConstantSeconds, s);
+                Complex y = h * 2 * amplitude * edge * delay / s;
                 if (k == m / 2) y = new Complex(y.Real, 0);
                 spectrum[2 * k] = y.Real;
                 spectrum[2 * k + 1] = y.Imaginary;

@@ -27,6 +27,14 @@ public sealed record InstrumentSettings
     /// <summary>Time recorded before the incident edge's 50 % point at the port, s (≥ 0). Default 5 ns.</summary>
     public double PreTriggerSeconds { get; init; } = 5e-9;
 
+    /// <summary>Part of the incident step that arrives slowly, as a first-order settling after the fast edge (a real
+    /// step generator creeps on by a per cent or so): the step is (1 − a)·fast + a·fast∗(1 − e^(−t/τ)), i.e. E(s) times
+    /// 1 − a + a/(1 + sτ). Default 0 (an edge that settles at once).</summary>
+    public double SettlingFraction { get; init; }
+
+    /// <summary>Time constant τ of <see cref="SettlingFraction"/>, s (&gt; 0 when the fraction is not 0).</summary>
+    public double SettlingTimeConstantSeconds { get; init; }
+
     /// <summary>RMS of white Gaussian noise added to each sample, V (≥ 0). Default 0.</summary>
     public double NoiseRmsVolts { get; init; }
 
@@ -50,6 +58,8 @@ public sealed record InstrumentSettings
         if (SampleCount < 2 || SampleCount > MaximumSampleCount) problems.Add($"sample count {SampleCount} must be between 2 and {MaximumSampleCount}");
         if (!(PreTriggerSeconds >= 0) || !double.IsFinite(PreTriggerSeconds)) problems.Add($"pre-trigger time {PreTriggerSeconds} s must be zero or positive");
         if (!(NoiseRmsVolts >= 0) || !double.IsFinite(NoiseRmsVolts)) problems.Add($"noise {NoiseRmsVolts} V RMS must be zero or positive");
+        if (!double.IsFinite(SettlingFraction) || (SettlingFraction != 0 && !(SettlingTimeConstantSeconds > 0 && double.IsFinite(SettlingTimeConstantSeconds))))
+            problems.Add($"settling {SettlingFraction} over {SettlingTimeConstantSeconds} s: the fraction must be a number and its time constant positive");
         return problems;
     }
 

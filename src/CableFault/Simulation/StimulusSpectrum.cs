@@ -54,6 +54,11 @@ internal static class StimulusSpectrum
         }
     }
 
+    /// <summary>The factor 1 − a + a/(1 + sτ) of a step whose part a settles with time constant τ after the fast edge
+    /// (see <see cref="InstrumentSettings.SettlingFraction"/>); |factor| ≤ |1 − a| + |a| on the contour.</summary>
+    internal static Complex Settling(double fraction, double timeConstantSeconds, Complex s) =>
+        1 - fraction + fraction / (1 + s * timeConstantSeconds);
+
     /// <summary>
     /// True when |E(s)| is below 1e-16 for this and every higher frequency on the contour, so the bin can be skipped.
     /// Both edges carry a Gaussian factor; the ramp's sinh(x)/x factor is at most about 1 on the contour (Re x ≪ 1).

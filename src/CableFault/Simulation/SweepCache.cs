@@ -23,7 +23,7 @@ internal sealed class SweepCache
 
     private readonly record struct SegmentKey(MediumKey Medium, double LengthMeters);
 
-    private readonly record struct EdgeKey(Grid Grid, EdgeShape Shape, double RiseSeconds);
+    private readonly record struct EdgeKey(Grid Grid, EdgeShape Shape, double RiseSeconds, double SettlingFraction, double SettlingSeconds);
 
     private readonly record struct DelayKey(Grid Grid, double EdgeCentreSeconds);
 
@@ -83,15 +83,22 @@ internal sealed class SweepCache
 
     /// <summary>E(s) and e^(−s·t_c) per bin, computed as <see cref="ForwardModel"/> does. Kept apart: a change of the
     /// edge's time (the time-offset column of a Jacobian) keeps E, a change of its rise keeps the delay.</summary>
-    internal (Complex[] Edge, Complex[] Delay) Stimulus(Grid grid, EdgeShape shape, double riseSeconds, double edgeCentreSeconds) =>
-        (Edge(grid, shape, riseSeconds), Delay(grid, edgeCentreSeconds));
+    internal (Complex[] Edge, Complex[] Delay) Stimulus(Grid grid, EdgeShape shape, double riseSeconds, double edgeCentreSeconds,
+        double settlingFraction = 0, double settlingSeconds = 0) =>
+        (Edge(grid, shape, riseSeconds, settlingFraction, settlingSeconds), Delay(grid, edgeCentreSeconds));
 
-    private Complex[] Edge(Grid grid, EdgeShape shape, double riseSeconds)
+    private Complex[] Edge(Grid grid, EdgeShape shape, double riseSeconds, double settlingFraction, double settlingSeconds)
     {
-        var key = new EdgeKey(grid, shape, riseSeconds);
+        var key = new EdgeKey(grid, shape, riseSeconds, settlingFraction, settlingSeconds);
         if (_edges.TryGetValue(key, out var cached)) return cached;
         var edge = new Complex[grid.BinCount];
-        for (int k = 0; k < grid.BinCount; k++) edge[k] = StimulusSpectrum.Evaluate(shape, riseSeconds, new Complex(grid.Sigma, k * grid.DOmega));
+        for (int k = 0; k < grid.BinCount; k++)
+        {
+            var s = new Complex(grid.Sigma, k * grid.DOmega);
+            edge[k] = StimulusSpectrum.Evaluate(shape, riseSeconds, s);
+            // Only a settling step multiplies: an edge that settles at once keeps exactly its old numbers.
+            if (settlingFraction != 0) edge[k] *= StimulusSpectrum.Settling(settlingFraction, settlingSeconds, s);
+        }
         Trim(grid.BinCount);
         return _edges.GetOrAdd(key, edge);
     }

@@ -32,6 +32,35 @@ public sealed class StimulusEdgeTests
     }
 
     [Theory]
+    [InlineData(0.02, 10e-9)]
+    [InlineData(-0.01, 40e-9)]
+    public void SettlingEdgeIsTheExponentiallyModifiedGaussian(double fraction, double timeConstantSeconds)
+    {
+        // A Gaussian edge whose part a arrives through a first-order lag τ: V_i·[(1 − a)·Φ(t/σ) + a·F(t)], with F the
+        // exponentially modified Gaussian's distribution, F(t) = Φ(t/σ) − e^(−t/τ + σ²/2τ²)·Φ((t − σ²/τ)/σ)
+        // (Grushka, Anal. Chem. 44, 1972: the convolution of a Gaussian with an exponential).
+        const double rise = 1e-9;
+        var trace = ForwardModel.Simulate(Run(Segment(10, Lossless()), RunEnd.Matched), Settings(rise, 2e-6, 8) with
+        {
+            SettlingFraction = fraction, SettlingTimeConstantSeconds = timeConstantSeconds,
+        });
+        double sigma = rise / (2 * 1.2815515655446004);
+        double Phi(double x) => 0.5 * SpecialFunctions.Erfc(-x / Math.Sqrt(2));
+        double worst = 0;
+        for (int i = 0; i < trace.Length; i++)
+        {
+            double t = trace.TimeAt(i);
+            // The exponential factor overflows far before the edge, where Φ of its argument is zero anyway.
+            double lagged = Phi(t / sigma) - (t < -20 * sigma ? 0
+                : Math.Exp(-t / timeConstantSeconds + sigma * sigma / (2 * timeConstantSeconds * timeConstantSeconds))
+                    * Phi((t - sigma * sigma / timeConstantSeconds) / sigma));
+            double expected = (1 - fraction) * Phi(t / sigma) + fraction * lagged;
+            worst = Math.Max(worst, Math.Abs(trace.SamplesVolts[i] - expected));
+        }
+        Assert.True(worst < ToleranceVolts, $"largest difference from the exponentially modified Gaussian: {worst:E3} V");
+    }
+
+    [Theory]
     [InlineData(8)]
     [InlineData(3)]
     public void LinearEdgeIsTheRampAwayFromItsRoundedCorners(int samplesPerRise)
