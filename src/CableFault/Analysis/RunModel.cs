@@ -259,7 +259,8 @@ internal sealed class RunModel
             SettlingFraction = Context.SettlingFraction,
             SettlingTimeConstantSeconds = Context.SettlingSeconds,
         };
-        var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings, data.Cache);
+        var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings, data.Cache,
+            ForwardModel.FitMaximumUndamping);
         if (OffsetVolts != 0)
             for (int i = 0; i < samples.Length; i++) samples[i] += OffsetVolts;
         return samples;

@@ -4,32 +4,54 @@ using System.Numerics;
 namespace CableFault.Simulation;
 
 /// <summary>
-/// Unscaled inverse FFT of a Hermitian spectrum to real samples, x_n = Σ_k Y_k e^(+2πikn/M), for power-of-two M.
-/// The fit evaluates the forward model thousands of times at one length; this transform keeps its twiddle factors
-/// per length and runs on one thread, where the general-purpose library transform re-plans (and may fan out to the
-/// thread pool) on every call and then dominated the cost of an evaluation.
+/// Unscaled inverse FFT of a Hermitian spectrum to real samples, x_n = Σ_k Y_k e^(+2πikn/M), for any even M (fastest
+/// when M/2 has no prime factor above 5, see <see cref="FastLength"/>). The fit evaluates the forward model thousands
+/// of times at one length; this transform keeps its twiddle factors per length and runs on one thread, where the
+/// general-purpose library transform re-plans (and may fan out to the thread pool) on every call and then dominated the
+/// cost of an evaluation.
 /// </summary>
-/// <remarks>Iterative radix-2 decimation in time with bit-reversed input order (Cooley &amp; Tukey, <i>Math. Comp.</i>
-/// 19, 1965). Checked against MathNet.Numerics' <c>Fourier.InverseReal</c> in the tests.</remarks>
+/// <remarks>Mixed-radix Cooley–Tukey (Cooley &amp; Tukey, <i>Math. Comp.</i> 19, 1965) in Stockham's self-sorting order
+/// (Cochran et al., "What is the fast Fourier transform?", <i>Proc. IEEE</i> 55(10), 1967), with radix-4, 2, 3 and 5
+/// butterflies and a plain DFT for any larger prime. Checked against MathNet.Numerics' <c>Fourier.InverseReal</c> in the
+/// tests.</remarks>
 internal static class InverseFft
 {
-    private static readonly ConcurrentDictionary<int, (Complex[] Twiddles, int[] Reversed)> Plans = new();
+    private static readonly ConcurrentDictionary<int, (Complex[] Twiddles, Complex[] HalfTwiddles, int[] Radices)> Plans = new();
 
-    /// <summary>e^(+2πij/M) for j &lt; M/2, and the bit reversal of the M/2-point complex transform.</summary>
-    private static (Complex[] Twiddles, int[] Reversed) Plan(int m) => Plans.GetOrAdd(m, length =>
+    /// <summary>
+    /// The smallest even length ≥ <paramref name="needed"/> whose half has no prime factor above 5. A record's samples
+    /// then fill the transform to within a few per cent, where a power of two wastes up to half of it, and every bin of
+    /// the forward model costs the same whatever the length.
+    /// </summary>
+    internal static long FastLength(long needed)
     {
-        var twiddles = new Complex[length / 2];
-        for (int j = 0; j < twiddles.Length; j++) twiddles[j] = Complex.FromPolarCoordinates(1, 2 * Math.PI * j / length);
-        int half = length / 2;
-        int bits = System.Numerics.BitOperations.Log2((uint)half);
-        var reversed = new int[half];
-        for (int i = 0; i < half; i++)
+        long half = Math.Max(1, (needed + 1) / 2);
+        for (; ; half++)
         {
-            int r = 0;
-            for (int b = 0; b < bits; b++) r |= ((i >> b) & 1) << (bits - 1 - b);
-            reversed[i] = r;
+            long rest = half;
+            foreach (int p in (ReadOnlySpan<int>)[2, 3, 5])
+                while (rest % p == 0) rest /= p;
+            if (rest == 1) return 2 * half;
         }
-        return (twiddles, reversed);
+    }
+
+    /// <summary>e^(+2πij/M) for j &lt; M/2 (the real transform's split), e^(+2πij/(M/2)) for j &lt; M/2 (the complex
+    /// transform's twiddles), and the radices of M/2 in the order the passes take them.</summary>
+    private static (Complex[] Twiddles, Complex[] HalfTwiddles, int[] Radices) Plan(int m) => Plans.GetOrAdd(m, length =>
+    {
+        int half = length / 2;
+        var twiddles = new Complex[half];
+        for (int j = 0; j < half; j++) twiddles[j] = Complex.FromPolarCoordinates(1, 2 * Math.PI * j / length);
+        var halfTwiddles = new Complex[half];
+        for (int j = 0; j < half; j++) halfTwiddles[j] = Complex.FromPolarCoordinates(1, 2 * Math.PI * j / half);
+        var radices = new List<int>();
+        int rest = half;
+        while (rest % 4 == 0) { radices.Add(4); rest /= 4; }
+        foreach (int p in (ReadOnlySpan<int>)[2, 3, 5])
+            while (rest % p == 0) { radices.Add(p); rest /= p; }
+        for (int p = 7; rest > 1; p += 2)
+            while (rest % p == 0) { radices.Add(p); rest /= p; }
+        return (twiddles, halfTwiddles, radices.ToArray());
     });
 
     /// <summary>
@@ -40,7 +62,7 @@ internal static class InverseFft
     /// x_2n = Σ_k E_k e^(2πikn/(M/2)) and x_(2n+1) = Σ_k O_k e^(2πikn/(M/2)) for E_k = X_k + conj(X_(M/2−k)) and
     /// O_k = (X_k − conj(X_(M/2−k)))·e^(2πik/M), both Hermitian, so z = IDFT(E + jO) holds x_2n + j·x_(2n+1).</remarks>
     /// <param name="given">X_0 … X_(K−1), K ≤ M/2 + 1.</param>
-    /// <param name="m">Transform length M, a power of two ≥ 2.</param>
+    /// <param name="m">Transform length M, even and ≥ 2.</param>
     internal static double[] Real(ReadOnlySpan<Complex> given, int m)
     {
         var x = new double[m];
@@ -49,38 +71,162 @@ internal static class InverseFft
     }
 
     /// <summary>As <see cref="Real(ReadOnlySpan{Complex}, int)"/>, into <paramref name="x"/> (at least M long); the work
-    /// array is pooled, so repeated transforms allocate nothing.</summary>
+    /// arrays are pooled, so repeated transforms allocate nothing.</summary>
     internal static void Real(ReadOnlySpan<Complex> given, int m, Span<double> x)
     {
-        var (twiddles, reversed) = Plan(m);
+        if (m < 2 || m % 2 != 0) throw new ArgumentOutOfRangeException(nameof(m), m, "The transform length must be even and at least 2.");
+        var (twiddles, halfTwiddles, radices) = Plan(m);
         int half = m / 2;
         Complex X(int k, ReadOnlySpan<Complex> g) => k < g.Length ? g[k] : Complex.Zero;
-        var rented = SweepBuffers<Complex>.Rent(half);
-        var a = rented.AsSpan(0, half);
+        var rentedA = SweepBuffers<Complex>.Rent(half);
+        var rentedB = SweepBuffers<Complex>.Rent(half);
+        var a = rentedA.AsSpan(0, half);
+        var b = rentedB.AsSpan(0, half);
         for (int k = 0; k < half; k++)
         {
             Complex xk = X(k, given), xm = Complex.Conjugate(X(half - k, given));
-            Complex e = xk + xm, o = (xk - xm) * twiddles[k];
-            a[reversed[k]] = new Complex(e.Real - o.Imaginary, e.Imaginary + o.Real);
+            Complex e = xk + xm, o = ComplexMath.Multiply(xk - xm, twiddles[k]);
+            a[k] = new Complex(e.Real - o.Imaginary, e.Imaginary + o.Real);
         }
-        for (int size = 2; size <= half; size <<= 1)
+        // Stockham's passes: a pass of radix r over the current length n (stride s, n·s = M/2) writes
+        // y[q + s·(r·p + k)] = W_n^(p·k) · Σ_j x[q + s·(p + j·n/r)]·ω_r^(j·k), ω_r = e^(+2πi/r), W_n = e^(+2πi/n).
+        int n = half, stride = 1;
+        foreach (int r in radices)
         {
-            int halfSize = size / 2, step = 2 * (half / size);
-            for (int start = 0; start < half; start += size)
+            int count = n / r;
+            switch (r)
             {
-                for (int j = 0; j < halfSize; j++)
+                case 4: Radix4(a, b, count, stride, halfTwiddles); break;
+                case 2: Radix2(a, b, count, stride, halfTwiddles); break;
+                case 3: Radix3(a, b, count, stride, halfTwiddles); break;
+                case 5: Radix5(a, b, count, stride, halfTwiddles); break;
+                default: RadixAny(a, b, r, count, stride, halfTwiddles); break;
+            }
+            var swap = a;
+            a = b;
+            b = swap;
+            n = count;
+            stride *= r;
+        }
+        for (int i = 0; i < half; i++)
+        {
+            x[2 * i] = a[i].Real;
+            x[2 * i + 1] = a[i].Imaginary;
+        }
+        SweepBuffers<Complex>.Return(rentedA);
+        SweepBuffers<Complex>.Return(rentedB);
+    }
+
+    /// <summary>j·z.</summary>
+    private static Complex TimesI(Complex z) => new(-z.Imaginary, z.Real);
+
+    private static void Radix2(Span<Complex> x, Span<Complex> y, int count, int stride, Complex[] w)
+    {
+        for (int p = 0; p < count; p++)
+        {
+            Complex w1 = w[p * stride];
+            int input = stride * p, output = stride * 2 * p;
+            for (int q = 0; q < stride; q++)
+            {
+                Complex a0 = x[input + q], a1 = x[input + q + stride * count];
+                y[output + q] = a0 + a1;
+                y[output + q + stride] = ComplexMath.Multiply(a0 - a1, w1);
+            }
+        }
+    }
+
+    private static void Radix4(Span<Complex> x, Span<Complex> y, int count, int stride, Complex[] w)
+    {
+        int jump = stride * count;
+        for (int p = 0; p < count; p++)
+        {
+            Complex w1 = w[p * stride], w2 = w[2 * p * stride], w3 = w[3 * p * stride];
+            int input = stride * p, output = stride * 4 * p;
+            for (int q = 0; q < stride; q++)
+            {
+                int i = input + q;
+                Complex a0 = x[i], a1 = x[i + jump], a2 = x[i + 2 * jump], a3 = x[i + 3 * jump];
+                Complex s02 = a0 + a2, d02 = a0 - a2, s13 = a1 + a3, d13 = TimesI(a1 - a3);
+                int o = output + q;
+                y[o] = s02 + s13;
+                y[o + stride] = ComplexMath.Multiply(d02 + d13, w1);
+                y[o + 2 * stride] = ComplexMath.Multiply(s02 - s13, w2);
+                y[o + 3 * stride] = ComplexMath.Multiply(d02 - d13, w3);
+            }
+        }
+    }
+
+    /// <summary>√3/2 = sin(2π/3).</summary>
+    private const double Sin60 = 0.86602540378443864676;
+
+    private static void Radix3(Span<Complex> x, Span<Complex> y, int count, int stride, Complex[] w)
+    {
+        int jump = stride * count;
+        for (int p = 0; p < count; p++)
+        {
+            Complex w1 = w[p * stride], w2 = w[2 * p * stride];
+            int input = stride * p, output = stride * 3 * p;
+            for (int q = 0; q < stride; q++)
+            {
+                int i = input + q;
+                Complex a0 = x[i], a1 = x[i + jump], a2 = x[i + 2 * jump];
+                Complex sum = a1 + a2, mid = a0 - 0.5 * sum, turn = TimesI(Sin60 * (a1 - a2));
+                int o = output + q;
+                y[o] = a0 + sum;
+                y[o + stride] = ComplexMath.Multiply(mid + turn, w1);
+                y[o + 2 * stride] = ComplexMath.Multiply(mid - turn, w2);
+            }
+        }
+    }
+
+    /// <summary>cos and sin of 2π/5 and 4π/5.</summary>
+    private static readonly double C1 = Math.Cos(2 * Math.PI / 5), C2 = Math.Cos(4 * Math.PI / 5),
+        S1 = Math.Sin(2 * Math.PI / 5), S2 = Math.Sin(4 * Math.PI / 5);
+
+    private static void Radix5(Span<Complex> x, Span<Complex> y, int count, int stride, Complex[] w)
+    {
+        int jump = stride * count;
+        double c1 = C1, c2 = C2, s1 = S1, s2 = S2;
+        for (int p = 0; p < count; p++)
+        {
+            Complex w1 = w[p * stride], w2 = w[2 * p * stride], w3 = w[3 * p * stride], w4 = w[4 * p * stride];
+            int input = stride * p, output = stride * 5 * p;
+            for (int q = 0; q < stride; q++)
+            {
+                int i = input + q;
+                Complex a0 = x[i], a1 = x[i + jump], a2 = x[i + 2 * jump], a3 = x[i + 3 * jump], a4 = x[i + 4 * jump];
+                Complex t1 = a1 + a4, t2 = a2 + a3, t3 = a1 - a4, t4 = a2 - a3;
+                Complex r1 = a0 + c1 * t1 + c2 * t2, r2 = a0 + c2 * t1 + c1 * t2;
+                Complex i1 = TimesI(s1 * t3 + s2 * t4), i2 = TimesI(s2 * t3 - s1 * t4);
+                int o = output + q;
+                y[o] = a0 + t1 + t2;
+                y[o + stride] = ComplexMath.Multiply(r1 + i1, w1);
+                y[o + 2 * stride] = ComplexMath.Multiply(r2 + i2, w2);
+                y[o + 3 * stride] = ComplexMath.Multiply(r2 - i2, w3);
+                y[o + 4 * stride] = ComplexMath.Multiply(r1 - i1, w4);
+            }
+        }
+    }
+
+    /// <summary>Any radix by its plain DFT: only for a prime factor above 5, which <see cref="FastLength"/> never gives.</summary>
+    private static void RadixAny(Span<Complex> x, Span<Complex> y, int r, int count, int stride, Complex[] w)
+    {
+        int jump = stride * count, n = count * r;
+        var a = new Complex[r];
+        for (int p = 0; p < count; p++)
+        {
+            int input = stride * p, output = stride * r * p;
+            for (int q = 0; q < stride; q++)
+            {
+                for (int j = 0; j < r; j++) a[j] = x[input + q + j * jump];
+                for (int k = 0; k < r; k++)
                 {
-                    Complex u = a[start + j], v = ComplexMath.Multiply(a[start + j + halfSize], twiddles[j * step]);
-                    a[start + j] = u + v;
-                    a[start + j + halfSize] = u - v;
+                    Complex sum = Complex.Zero;
+                    // ω_r^(jk) = W_(M/2)^(jk·M/(2r)), and M/2 = n·stride.
+                    for (int j = 0; j < r; j++) sum += a[j] * w[(int)((long)j * k % r * count * stride)];
+                    y[output + q + k * stride] = ComplexMath.Multiply(sum, w[p * k * stride]);
                 }
             }
         }
-        for (int n = 0; n < half; n++)
-        {
-            x[2 * n] = a[n].Real;
-            x[2 * n + 1] = a[n].Imaginary;
-        }
-        SweepBuffers<Complex>.Return(rented);
     }
 }

@@ -25,11 +25,7 @@ public class SweepCacheTests
     [InlineData(2048, 700)]
     public void InverseRealMatchesMathNet(int m, int givenBins)
     {
-        var random = new Random(m);
-        var half = new Complex[givenBins];
-        for (int k = 0; k < givenBins; k++) half[k] = new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5);
-        half[0] = new Complex(half[0].Real, 0);
-        if (givenBins == m / 2 + 1) half[m / 2] = new Complex(half[m / 2].Real, 0);
+        var half = RandomHermitianHalf(m, givenBins);
         var packed = new double[m + 2];
         for (int k = 0; k < givenBins; k++) { packed[2 * k] = half[k].Real; packed[2 * k + 1] = half[k].Imaginary; }
         Fourier.InverseReal(packed, m, FourierOptions.NoScaling);
@@ -38,6 +34,74 @@ public class SweepCacheTests
 
         double scale = Enumerable.Range(0, m).Max(i => Math.Abs(packed[i]));
         for (int i = 0; i < m; i++) Assert.InRange(ours[i] - packed[i], -FftRelativeTolerance * scale, FftRelativeTolerance * scale);
+    }
+
+    /// <summary>
+    /// Lengths that are not powers of two (radix 3, 5, 4·2 and the plain-DFT fallback for 7 and 11) against the direct
+    /// sum x_n = X_0 + 2·Re Σ_k X_k e^(2πikn/M) (bin M/2 once), with the angle reduced exactly (kn mod M) and compensated
+    /// summation. MathNet is no reference here: for such lengths it takes Bluestein's algorithm, off by ~1e-10.
+    /// </summary>
+    [Theory]
+    [InlineData(6, 4)]
+    [InlineData(30, 16)]
+    [InlineData(1152, 577)]
+    [InlineData(6144, 3073)]
+    [InlineData(6250, 2000)]
+    [InlineData(2 * 7 * 11 * 3, 100)]
+    public void InverseRealMatchesTheDirectSum(int m, int givenBins)
+    {
+        var half = RandomHermitianHalf(m, givenBins);
+
+        var ours = InverseFft.Real(half, m);
+
+        var direct = new double[m];
+        for (int n = 0; n < m; n++)
+        {
+            double sum = half[0].Real, carry = 0;
+            for (int k = 1; k < givenBins; k++)
+            {
+                double angle = 2 * Math.PI * ((long)k * n % m) / m;
+                double term = (k == m / 2 ? 1 : 2) * (half[k].Real * Math.Cos(angle) - half[k].Imaginary * Math.Sin(angle)) - carry;
+                double next = sum + term;
+                carry = next - sum - term;
+                sum = next;
+            }
+            direct[n] = sum;
+        }
+        double scale = direct.Max(Math.Abs);
+        for (int i = 0; i < m; i++) Assert.InRange(ours[i] - direct[i], -FftRelativeTolerance * scale, FftRelativeTolerance * scale);
+    }
+
+    /// <summary>Bins 0 … K−1 of a Hermitian spectrum with random parts (bins 0 and M/2 real).</summary>
+    private static Complex[] RandomHermitianHalf(int m, int givenBins)
+    {
+        var random = new Random(m);
+        var half = new Complex[givenBins];
+        for (int k = 0; k < givenBins; k++) half[k] = new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5);
+        half[0] = new Complex(half[0].Real, 0);
+        if (givenBins == m / 2 + 1) half[m / 2] = new Complex(half[m / 2].Real, 0);
+        return half;
+    }
+
+    /// <summary>The fast lengths are the even numbers whose half is 5-smooth (2^a·3^b·5^c), the least one at or above the
+    /// need: checked by brute force.</summary>
+    [Theory]
+    [InlineData(1)]
+    [InlineData(1070)]
+    [InlineData(6130)]
+    [InlineData(100_001)]
+    public void FastLengthIsTheLeastEvenFiveSmoothLength(long needed)
+    {
+        static bool IsFast(long m)
+        {
+            if (m % 2 != 0) return false;
+            long h = m / 2;
+            foreach (int p in new[] { 2, 3, 5 }) while (h % p == 0) h /= p;
+            return h == 1;
+        }
+        long fast = InverseFft.FastLength(needed);
+        Assert.True(fast >= needed && IsFast(fast), $"{fast} for {needed}");
+        for (long m = Math.Max(2, needed); m < fast; m++) Assert.False(IsFast(m), $"{m} is fast and below {fast}");
     }
 
     [Theory]
@@ -62,14 +126,45 @@ public class SweepCacheTests
         {
             var network = networks.Network();
             var compiled = new CompiledNetwork(network);
-            var plain = ForwardModel.SimulateSamples(compiled, settings);
-            // Twice: the second run takes every per-bin quantity from the cache.
-            for (int pass = 0; pass < 2; pass++)
+            // With and without a fit's cap on the undamping (it changes the contour, so the cache keeps both).
+            foreach (double cap in new[] { double.PositiveInfinity, ForwardModel.FitMaximumUndamping })
             {
-                var cached = ForwardModel.SimulateSamples(compiled, settings, cache);
-                for (int i = 0; i < plain.Length; i++)
-                    Assert.InRange(cached[i] - plain[i], -SimulationRelativeTolerance, SimulationRelativeTolerance);
+                var plain = ForwardModel.SimulateSamples(compiled, settings, null, cap);
+                // Twice: the second run takes every per-bin quantity from the cache.
+                for (int pass = 0; pass < 2; pass++)
+                {
+                    var cached = ForwardModel.SimulateSamples(compiled, settings, cache, cap);
+                    for (int i = 0; i < plain.Length; i++)
+                        Assert.InRange(cached[i] - plain[i], -SimulationRelativeTolerance, SimulationRelativeTolerance);
+                }
             }
+        }
+    }
+
+    /// <summary>
+    /// A fit's cap on the undamping trades rounding for wrap-around: e^(−σT) ≤ 1/cap when the transform is as long as the
+    /// record, so its samples stay within 1/cap times the largest level the run can take after the record (the source's
+    /// open-circuit 2 V, with half again for overshoot: 3 V) of the balanced simulation.
+    /// </summary>
+    [Theory]
+    [InlineData(1000)]
+    [InlineData(1490)]
+    [InlineData(4000)]
+    public void CappedUndampingStaysWithinItsWrapAroundBound(int sampleCount)
+    {
+        var networks = new RandomNetworks(31, lossless: false);
+        var settings = new InstrumentSettings
+        {
+            SourceImpedanceOhms = 50, IncidentAmplitudeVolts = 1, RiseTimeSeconds = 0.5e-9, EdgeShape = EdgeShape.Gaussian,
+            SampleIntervalSeconds = 0.2e-9, SampleCount = sampleCount, PreTriggerSeconds = 2e-9,
+        };
+        for (int n = 0; n < 3; n++)
+        {
+            var compiled = new CompiledNetwork(networks.Network());
+            var balanced = ForwardModel.SimulateSamples(compiled, settings);
+            var capped = ForwardModel.SimulateSamples(compiled, settings, null, ForwardModel.FitMaximumUndamping);
+            double bound = 3 / ForwardModel.FitMaximumUndamping;
+            for (int i = 0; i < balanced.Length; i++) Assert.InRange(capped[i] - balanced[i], -bound, bound);
         }
     }
 
