@@ -114,8 +114,9 @@ public static class ForwardModel
         int shift = (int)Math.Max(0, Math.Ceiling((leadIn - settings.PreTriggerSeconds) / dt));
         double edgeCentre = settings.PreTriggerSeconds + shift * dt;
         long needed = shift + (long)(settings.SampleCount - 1) * oversample + 1;
+        if (!(maximumUndamping > 1)) throw new ArgumentOutOfRangeException(nameof(maximumUndamping), maximumUndamping, "The undamping cap must exceed 1.");
         // The shortest fast length that holds the record: the cost of a run grows with the transform's bins.
-        long fftLength = InverseFft.FastLength(needed);
+        long fftLength = needed > 1L << 27 ? needed : InverseFft.FastLength(needed);
         if (fftLength > (1L << 27))
             throw new InputException($"simulate settings: the record needs an internal FFT of {fftLength} points, over the {1L << 27} limit; shorten the record (--duration-ns, --samples) or lengthen --rise-time-ns");
         int m = (int)fftLength;

@@ -23,21 +23,35 @@ internal static class InverseFft
     /// then fill the transform to within a few per cent, where a power of two wastes up to half of it, and every bin of
     /// the forward model costs the same whatever the length.
     /// </summary>
+    /// <remarks>Enumerates the halves 2^a·3^b·5^c directly (a few hundred candidates even near 2⁶⁰), so a huge request
+    /// costs no time; requests above 2⁶¹ are refused.</remarks>
     internal static long FastLength(long needed)
     {
-        long half = Math.Max(1, (needed + 1) / 2);
-        for (; ; half++)
+        if (needed > 1L << 61) throw new ArgumentOutOfRangeException(nameof(needed), needed, "Transform length beyond 2^61.");
+        long target = Math.Max(1, (needed + 1) / 2);
+        long best = long.MaxValue;
+        for (long p5 = 1; ; p5 *= 5)
         {
-            long rest = half;
-            foreach (int p in (ReadOnlySpan<int>)[2, 3, 5])
-                while (rest % p == 0) rest /= p;
-            if (rest == 1) return 2 * half;
+            for (long p35 = p5; ; p35 *= 3)
+            {
+                long half = p35;
+                while (half < target) half *= 2;
+                best = Math.Min(best, half);
+                if (p35 >= target) break;
+            }
+            if (p5 >= target) break;
         }
+        return 2 * best;
     }
 
     /// <summary>e^(+2πij/M) for j &lt; M/2 (the real transform's split), e^(+2πij/(M/2)) for j &lt; M/2 (the complex
     /// transform's twiddles), and the radices of M/2 in the order the passes take them.</summary>
-    private static (Complex[] Twiddles, Complex[] HalfTwiddles, int[] Radices) Plan(int m) => Plans.GetOrAdd(m, length =>
+    private static (Complex[] Twiddles, Complex[] HalfTwiddles, int[] Radices) Plan(int m) =>
+        // A fit uses one length thousands of times; a one-off long simulation's plan is not kept (it would hold 16·M bytes
+        // for the life of the process).
+        m <= SweepBuffers<Complex>.MaximumPooledLength ? Plans.GetOrAdd(m, NewPlan) : NewPlan(m);
+
+    private static (Complex[] Twiddles, Complex[] HalfTwiddles, int[] Radices) NewPlan(int length)
     {
         int half = length / 2;
         var twiddles = new Complex[half];
@@ -52,7 +66,7 @@ internal static class InverseFft
         for (int p = 7; rest > 1; p += 2)
             while (rest % p == 0) { radices.Add(p); rest /= p; }
         return (twiddles, halfTwiddles, radices.ToArray());
-    });
+    }
 
     /// <summary>
     /// Real samples of the inverse transform of the spectrum whose bins 0..M/2 are given (higher bins are the complex

@@ -37,13 +37,16 @@ public class SweepCacheTests
     }
 
     /// <summary>
-    /// Lengths that are not powers of two (radix 3, 5, 4·2 and the plain-DFT fallback for 7 and 11) against the direct
+    /// Lengths that are not powers of two (radix 2 with its twiddles, 3, 4, 5 and the plain-DFT fallback for 7 and 11) against the direct
     /// sum x_n = X_0 + 2·Re Σ_k X_k e^(2πikn/M) (bin M/2 once), with the angle reduced exactly (kn mod M) and compensated
     /// summation. MathNet is no reference here: for such lengths it takes Bluestein's algorithm, off by ~1e-10.
     /// </summary>
     [Theory]
     [InlineData(6, 4)]
+    [InlineData(12, 7)]
     [InlineData(30, 16)]
+    [InlineData(100, 51)]
+    [InlineData(2 * 2 * 3 * 5 * 7, 150)]
     [InlineData(1152, 577)]
     [InlineData(6144, 3073)]
     [InlineData(6250, 2000)]
@@ -89,6 +92,8 @@ public class SweepCacheTests
     [InlineData(1)]
     [InlineData(1070)]
     [InlineData(6130)]
+    [InlineData(2)]
+    [InlineData(3)]
     [InlineData(100_001)]
     public void FastLengthIsTheLeastEvenFiveSmoothLength(long needed)
     {
@@ -142,9 +147,10 @@ public class SweepCacheTests
     }
 
     /// <summary>
-    /// A fit's cap on the undamping trades rounding for wrap-around: e^(−σT) ≤ 1/cap when the transform is as long as the
-    /// record, so its samples stay within 1/cap times the largest level the run can take after the record (the source's
-    /// open-circuit 2 V, with half again for overshoot: 3 V) of the balanced simulation.
+    /// A fit's cap on the undamping trades rounding for wrap-around. When the cap binds, e^(−σT) ≤ 1/cap (T ≥ t_rec), so a
+    /// capped sample differs from the balanced one by at most the waveform one period later, |f(t + T)|, over the cap
+    /// (plus the later periods, 1/cap² and less). That future is read from a balanced simulation of a record 2.2 times as
+    /// long (T + t_rec stays below it), so the bound is the model's own, not a rule of thumb; 1e-7 is left for rounding.
     /// </summary>
     [Theory]
     [InlineData(1000)]
@@ -158,12 +164,15 @@ public class SweepCacheTests
             SourceImpedanceOhms = 50, IncidentAmplitudeVolts = 1, RiseTimeSeconds = 0.5e-9, EdgeShape = EdgeShape.Gaussian,
             SampleIntervalSeconds = 0.2e-9, SampleCount = sampleCount, PreTriggerSeconds = 2e-9,
         };
+        var longer = settings with { SampleCount = (int)(2.2 * sampleCount) };
+        double cap = ForwardModel.FitMaximumUndamping;
         for (int n = 0; n < 3; n++)
         {
             var compiled = new CompiledNetwork(networks.Network());
             var balanced = ForwardModel.SimulateSamples(compiled, settings);
-            var capped = ForwardModel.SimulateSamples(compiled, settings, null, ForwardModel.FitMaximumUndamping);
-            double bound = 3 / ForwardModel.FitMaximumUndamping;
+            var capped = ForwardModel.SimulateSamples(compiled, settings, null, cap);
+            double future = ForwardModel.SimulateSamples(compiled, longer).Skip(sampleCount).Max(Math.Abs);
+            double bound = future / cap * (1 + 2 / cap) + 1e-7;
             for (int i = 0; i < balanced.Length; i++) Assert.InRange(capped[i] - balanced[i], -bound, bound);
         }
     }
