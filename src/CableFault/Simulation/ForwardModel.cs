@@ -100,6 +100,9 @@ public static class ForwardModel
 
     /// <summary>As <see cref="SimulateSamples(CompiledNetwork, InstrumentSettings)"/>, reusing per-bin quantities from
     /// <paramref name="cache"/> when given (a fit's repeated evaluations of one run with small changes).</summary>
+    /// <param name="network">The compiled run.</param>
+    /// <param name="settings">The instrument and record.</param>
+    /// <param name="cache">Per-bin quantities shared by a fit's runs, or null.</param>
     /// <param name="maximumUndamping">Cap on e^(σ·t_rec) (see <see cref="FitMaximumUndamping"/>); none by default.</param>
     internal static double[] SimulateSamples(CompiledNetwork network, InstrumentSettings settings, SweepCache? cache,
         double maximumUndamping = double.PositiveInfinity)
