@@ -86,6 +86,7 @@ public static class LocateCommand
                 var options = settings.ToLocateOptions() with
                 {
                     TimeZeroOffsetSeconds = offsetSeconds, EstimateSettling = parsed.GetValue(fitSettling),
+                    WarningsInFeet = unit == DistanceUnit.Feet,
                 };
                 // Both ends: the VF cancels, so the σ's must be the timing σ's alone.
                 if (timingSigmaOnly) options = options with { VelocityFactorRelativeSigma = 0 };

@@ -62,6 +62,7 @@ public static class ReportCommand
             var result = Locator.Locate(loaded.Trace, settings.ToLocateOptions() with
             {
                 TimeZeroOffsetSeconds = parsed.GetValue(offset) is double ns ? ns * 1e-9 : null,
+                WarningsInFeet = unit == DistanceUnit.Feet,
             });
 
             RepairCheckPart? repair = null;

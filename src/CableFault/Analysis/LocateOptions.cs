@@ -45,6 +45,15 @@ public sealed record LocateOptions
     /// <summary>Progress 0…1, optional.</summary>
     public IProgress<double>? Progress { get; init; }
 
+    /// <summary>Distances in the warnings in feet instead of metres (what the user asked to see); the results stay in
+    /// metres.</summary>
+    public bool WarningsInFeet { get; init; }
+
+    /// <summary>A distance for a warning, in the unit of <see cref="WarningsInFeet"/>, with its symbol.</summary>
+    internal string WarningDistance(double meters, string format = "0.###") => WarningsInFeet
+        ? (meters / PhysicalConstants.MetersPerFoot).ToString(format, System.Globalization.CultureInfo.InvariantCulture) + " ft"
+        : meters.ToString(format, System.Globalization.CultureInfo.InvariantCulture) + " m";
+
     /// <summary>Cancels a long analysis.</summary>
     public CancellationToken CancellationToken { get; init; }
 

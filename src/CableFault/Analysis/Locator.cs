@@ -77,7 +77,7 @@ public static class Locator
         double blindMeters = v * blindSeconds / 2;
         if (candidates.Any(c => c.RoundTripSeconds <= blindSeconds))
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"something changes within the blind zone ({blindMeters:0.###} m); add a launch cable longer than that to see it."));
+                $"something changes within the blind zone ({options.WarningDistance(blindMeters)}); add a launch cable longer than that to see it."));
 
         double z0 = options.ImpedanceOhms, zs = options.SourceImpedanceOhms;
         // The port sees the divider 2A·Z₀/(Z_s + Z₀) on the first plateau (DESIGN.md §2): A is V_s/2.
@@ -140,7 +140,7 @@ public static class Locator
         }
         if (data.FilterSigmaSeconds > 0)
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"long record: the model was fitted with an effective rise of {riseEffective * 1e9:0.###} ns, so events closer than about {v * riseEffective / 2:0.###} m may show as one."));
+                $"long record: the model was fitted with an effective rise of {riseEffective * 1e9:0.###} ns, so events closer than about {options.WarningDistance(v * riseEffective / 2)} may show as one."));
         var fit = selection.Fit;
         var model = fit.Model;
         var covariance = ModelFitter.Covariance(fit, selection.VarianceVolts2, data.IndependentFraction);
@@ -183,7 +183,7 @@ public static class Locator
             located.Add(locatedEvent);
             if (e.Element == RunModelElement.ShuntResistor && kind == EventKind.Tap)
                 warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                    $"tap at {d:0.###} m: it reflects like {e.Value:0.#} Ω across the line, i.e. a branch into a matched load; if no tap is fitted there, it is a leak of that resistance."));
+                    $"tap at {options.WarningDistance(d)}: it reflects like {e.Value:0.#} Ω across the line, i.e. a branch into a matched load; if no tap is fitted there, it is a leak of that resistance."));
             if (e.Element == RunModelElement.Tap)
             {
                 // The branch's open end is an event of its own, on the branch: d_tap + v·τ_branch/2 from the connector.
@@ -196,7 +196,7 @@ public static class Locator
                 if (e.RoundTripSeconds + e.Value <= recordEnd)
                     located.Add(new LocatedEvent(dEnd, sigmaDEnd, EventKind.Open, 1.0, null, null, confidence, tEnd));
                 warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                    $"tap at {d:0.###} m: the open end at {dEnd:0.###} m is the end of its branch ({v * e.Value / 2:0.###} m long, assumed of the same cable), not of the main line."));
+                    $"tap at {options.WarningDistance(d)}: the open end at {options.WarningDistance(dEnd)} is the end of its branch ({options.WarningDistance(v * e.Value / 2)} long, assumed of the same cable), not of the main line."));
             }
         }
 
@@ -207,7 +207,7 @@ public static class Locator
         {
             located.Remove(inside);
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"{EventKindNames.ToJsonName(inside.Kind).Replace('_', ' ')} (ρ {inside.Reflection:+0.###;-0.###}) at the instrument's connector, inside the blind zone ({blindMeters:0.###} m): the cable or connector against the instrument, not located."));
+                $"{EventKindNames.ToJsonName(inside.Kind).Replace('_', ' ')} (ρ {inside.Reflection:+0.###;-0.###}) at the instrument's connector, inside the blind zone ({options.WarningDistance(blindMeters)}): the cable or connector against the instrument, not located."));
         }
 
         // An impedance change or spot this small is within the cable's own variation along its length, and a step
@@ -216,8 +216,8 @@ public static class Locator
         {
             faint.Sort((a, b) => a.DistanceMeters.CompareTo(b.DistanceMeters));
             string where = faint.Count <= 3
-                ? "at " + string.Join(", ", faint.Select(e => e.DistanceMeters.ToString("0.##", CultureInfo.InvariantCulture))) + " m"
-                : string.Create(CultureInfo.InvariantCulture, $"between {faint[0].DistanceMeters:0.##} and {faint[^1].DistanceMeters:0.##} m");
+                ? "at " + string.Join(", ", faint.Select(e => options.WarningDistance(e.DistanceMeters, "0.##")))
+                : $"between {options.WarningDistance(faint[0].DistanceMeters, "0.##")} and {options.WarningDistance(faint[^1].DistanceMeters, "0.##")}";
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
                 $"{faint.Count} impedance change(s) or spot(s) under {EventClassifier.MinimumListedStepReflection * 100:0.#} % (|ρ| < {EventClassifier.MinimumListedStepReflection}) {where} not listed: within a cable's own impedance variation, or the instrument's step settling slowly."));
         }
