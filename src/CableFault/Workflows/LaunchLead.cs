@@ -47,8 +47,8 @@ public sealed record LaunchLead(double LengthMeters, double VelocityFactor)
         var kept = result.Events.Where(e => e.RoundTripSeconds > limit).ToList();
         int dropped = result.Events.Count - kept.Count;
         if (dropped == 0) return result;
-        var warnings = result.Warnings.Append(string.Create(CultureInfo.InvariantCulture,
-            $"{dropped} event(s) inside the {LengthMeters:0.###} m lead or at its connector left out; distances are from the lead's far end.")).ToList();
+        var warnings = result.Warnings.Append(
+            $"{dropped} event(s) inside the {result.Options.WarningDistance(LengthMeters)} lead or at its connector left out; distances are from the lead's far end.").ToList();
         return result with { Events = kept, Warnings = warnings };
     }
 }
