@@ -100,7 +100,7 @@ internal static class EventClassifier
     internal static double? SeenReflection(RunModelElement element, double value, double impedanceBeforeOhms, double riseSeconds)
     {
         double z = impedanceBeforeOhms;
-        double PeakOfSpot(double tau) => tau * 2.5631031310892007 / (Math.Sqrt(2 * Math.PI) * riseSeconds);
+        double PeakOfSpot(double tau) => tau * Simulation.StimulusSpectrum.GaussianRiseInSigmas / (Math.Sqrt(2 * Math.PI) * riseSeconds);
         return element switch
         {
             RunModelElement.Boundary => (value - z) / (value + z),

@@ -25,37 +25,16 @@ internal static class SettlingEstimation
     /// traces out of the report (<see cref="EventClassifier.MinimumListedStepReflection"/>).</summary>
     private const double SmallestFraction = 0.002;
 
-    /// <summary>Share of the criterion the settling must explain on top of the evidence margin, as for the loss (the probe
-    /// fits start from the detector's events and may settle elsewhere for other reasons).</summary>
-    private const double RelativeMargin = 0.05;
-
     /// <summary>The settling's part and time constant, s, or null when the trace shows none the criterion accepts.</summary>
     internal static (double Fraction, double Seconds)? Estimate(RunModel initial, FitData data, CancellationToken cancellation)
     {
         var c = initial.Context;
-        var plainContext = c with { SettlingFraction = 0, SettlingSeconds = 0, EstimateSettling = false };
-        var settlingStart = initial.WithContext(c with
-        {
-            SettlingFraction = StartFraction, SettlingSeconds = StartRiseTimes * c.ReferenceRiseSeconds, EstimateSettling = true,
-        });
-        double variance = ModelSelection.SampleVariance(data, initial);
-        var fits = ModelFitter.FitEach([settlingStart, initial.WithContext(plainContext)], data, variance, cancellation: cancellation);
-        var (settling, plain) = (fits[0], fits[1]);
-        double settlingBic = ModelSelection.Criterion(settling, data, variance);
-        double plainBic = ModelSelection.Criterion(plain, data, variance);
-        var found = settling.Model.Context;
         double span = data.TimeAt(data.Samples.Length - 1) - data.StartTimeSeconds;
-        bool plausible = Math.Abs(found.SettlingFraction) >= SmallestFraction
+        bool Plausible(RunModelContext found) => Math.Abs(found.SettlingFraction) >= SmallestFraction
             && found.SettlingSeconds >= ShortestRiseTimes * c.ReferenceRiseSeconds && found.SettlingSeconds <= span / 4;
-        ModelSelection.DebugTrace?.Invoke($"settling probe: {found.SettlingFraction:P2} over {found.SettlingSeconds * 1e9:0.##} ns, bic {settlingBic:0.0} against {plainBic:0.0}");
-        if (!plausible || !(settlingBic < plainBic - Margin(plainBic))) return null;
-        // As for the loss: the settling fit's events fitted again without it, so that only a settling that still wins is
-        // taken (the two probe fits may have ended in different places for reasons that have nothing to do with it).
-        var again = ModelFitter.Fit(settling.Model.WithContext(plainContext), data, variance, cancellation: cancellation);
-        double againBic = ModelSelection.Criterion(again, data, variance);
-        ModelSelection.DebugTrace?.Invoke($"settling probe: without it from the same events {againBic:0.0}");
-        return settlingBic < againBic - Margin(againBic) ? (found.SettlingFraction, found.SettlingSeconds) : null;
+        var found = ContextProbe.Decide(initial,
+            c with { SettlingFraction = StartFraction, SettlingSeconds = StartRiseTimes * c.ReferenceRiseSeconds, EstimateSettling = true },
+            c with { SettlingFraction = 0, SettlingSeconds = 0, EstimateSettling = false }, data, Plausible, "settling", cancellation);
+        return found is null ? null : (found.SettlingFraction, found.SettlingSeconds);
     }
-
-    private static double Margin(double plainBic) => Math.Max(ModelSelection.EvidenceMargin, RelativeMargin * Math.Abs(plainBic));
 }

@@ -12,8 +12,8 @@ namespace CableFault.Simulation;
 /// </summary>
 /// <remarks>Mixed-radix Cooley–Tukey (Cooley &amp; Tukey, <i>Math. Comp.</i> 19, 1965) in Stockham's self-sorting order
 /// (Cochran et al., "What is the fast Fourier transform?", <i>Proc. IEEE</i> 55(10), 1967), with radix-4, 2, 3 and 5
-/// butterflies and a plain DFT for any larger prime. Checked against MathNet.Numerics' <c>Fourier.InverseReal</c> in the
-/// tests.</remarks>
+/// butterflies and a plain DFT for any larger prime. Checked in the tests against MathNet.Numerics' <c>Fourier.InverseReal</c>
+/// for powers of two and against a compensated direct sum for other lengths.</remarks>
 internal static class InverseFft
 {
     private static readonly ConcurrentDictionary<int, (Complex[] Twiddles, Complex[] HalfTwiddles, int[] Radices)> Plans = new();
