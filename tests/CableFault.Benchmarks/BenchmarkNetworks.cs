@@ -27,4 +27,23 @@ public static class BenchmarkNetworks
                 new NetworkBranch(new CableSegment(7, coax), RunEnd.Resistor(100)),
             ])), "benchmark ten-element run");
     }
+
+    /// <summary><see cref="TenElements"/> on lossless cable (a fit with the loss not given, or a short run).</summary>
+    public static CableNetwork TenElementsLossless()
+    {
+        var coax = new CableMedium(50, 0.66);
+        var other = new CableMedium(75, 0.66);
+        return new CableNetwork(new NetworkBranch(
+            new CableSegment(20, coax),
+            new ShuntCapacitor(8e-12),
+            new CableSegment(15, coax),
+            new SeriesInductor(25e-9),
+            new CableSegment(3, other),
+            new ShuntResistor(500),
+            new CableSegment(10, coax),
+            new Junction([
+                new NetworkBranch(new CableSegment(12, coax), RunEnd.Open),
+                new NetworkBranch(new CableSegment(7, coax), RunEnd.Resistor(100)),
+            ])), "benchmark ten-element lossless run");
+    }
 }

@@ -18,6 +18,9 @@ public class ForwardModelBenchmark
     private InstrumentSettings _settings = null!;
     private Complex[] _fftBuffer = null!;
     private Complex[] _fftSource = null!;
+    private CompiledNetwork _lossless = null!;
+    private InstrumentSettings _fitSettings = null!;
+    private SweepCache _cache = null!;
 
     [GlobalSetup]
     public void Setup()
@@ -28,6 +31,15 @@ public class ForwardModelBenchmark
         var random = new Random(7);
         _fftSource = Enumerable.Range(0, SampleCount).Select(_ => new Complex(random.NextDouble(), random.NextDouble())).ToArray();
         _fftBuffer = new Complex[SampleCount];
+        _lossless = new CompiledNetwork(BenchmarkNetworks.TenElementsLossless());
+        // A fit's model run on a long record's sharper look: 6 000 samples two effective σ apart, the undamping capped.
+        double fitRise = 3.8e-9;
+        _fitSettings = new InstrumentSettings
+        {
+            RiseTimeSeconds = fitRise, SampleIntervalSeconds = 0.5 * StimulusSpectrum.GaussianSigmaSeconds(fitRise),
+            SampleCount = 6_000, PreTriggerSeconds = 5e-9,
+        };
+        _cache = new SweepCache();
     }
 
     [Benchmark(Baseline = true, Description = "one complex FFT, 32768 points")]
@@ -40,4 +52,9 @@ public class ForwardModelBenchmark
 
     [Benchmark(Description = "forward model, 10 elements, 32768 samples")]
     public double ForwardModel10() => ForwardModel.Simulate(_network, _settings).SamplesVolts[^1];
+
+    /// <summary>What a fit repeats thousands of times: the cached sweep of a lossless run (no target; for comparisons).</summary>
+    [Benchmark(Description = "fit's model run, lossless 10 elements, 6000 samples")]
+    public double FitModelRunLossless() =>
+        ForwardModel.SimulateSamples(_lossless, _fitSettings, _cache, ForwardModel.FitMaximumUndamping)[^1];
 }

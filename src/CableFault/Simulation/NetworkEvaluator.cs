@@ -203,10 +203,18 @@ internal sealed class NetworkEvaluator
             }
             e = (k & 255) == 0 || previous != k - 1 ? Complex.Exp(-2 * (s / v * lengthMeters)) : ComplexMath.Multiply(e, step);
             previous = k;
-            // A = (1 + e)/2, B = Z_c·sinh, C = sinh/Z_c with sinh = (1 − e)/2, in the operations (and order) of
-            // System.Numerics.Complex's operators.
-            double shr = (1 - e.Real) * 0.5, shi = -e.Imaginary * 0.5;
-            Apply(n, d, k, new Complex((1 + e.Real) * 0.5, e.Imaginary * 0.5), new Complex(shr * z, shi * z), new Complex(shr * y, shi * y));
+            // With A = (1 + e)/2, B = Z_c(1 − e)/2, C = (1 − e)/(2Z_c) the matrix splits into the two travelling waves:
+            // P = (N + Z_c·D)/2 passes unchanged and M = (N − Z_c·D)/2 comes back turned by e, so
+            // N′ = P + e·M and D′ = (P − e·M)/Z_c: one complex product per bin instead of four.
+            Complex n0 = n[k], d0 = d[k];
+            double pr = (n0.Real + z * d0.Real) * 0.5, pi = (n0.Imaginary + z * d0.Imaginary) * 0.5;
+            double mr = (n0.Real - z * d0.Real) * 0.5, mi = (n0.Imaginary - z * d0.Imaginary) * 0.5;
+            double emr = e.Real * mr - e.Imaginary * mi, emi = e.Imaginary * mr + e.Real * mi;
+            var newN = new Complex(pr + emr, pi + emi);
+            var newD = new Complex((pr - emr) * y, (pi - emi) * y);
+            Normalise(ref newN, ref newD);
+            n[k] = newN;
+            d[k] = newD;
         }
     }
 
