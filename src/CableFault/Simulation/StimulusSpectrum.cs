@@ -69,6 +69,14 @@ internal static class StimulusSpectrum
         return sigma * sigma * (s.Real * s.Real - s.Imaginary * s.Imaginary) / 2 < -37;
     }
 
+    /// <summary>The angular frequency above which <see cref="IsNegligible"/> holds on the contour Re s = σ, rad/s:
+    /// σ_b²(ω² − σ²)/2 = 37.</summary>
+    internal static double NegligibleAboveRadiansPerSecond(EdgeShape shape, double riseTimeSeconds, double contourSigma)
+    {
+        double sigmaB = BandLimitSigmaSeconds(shape, riseTimeSeconds);
+        return Math.Sqrt(contourSigma * contourSigma + 74 / (sigmaB * sigmaB));
+    }
+
     /// <summary>Time from the start of the transition to its 50 % point, with margin, s: how far after internal zero the edge centre must sit.</summary>
     internal static double LeadInSeconds(EdgeShape shape, double riseTimeSeconds) => shape switch
     {
