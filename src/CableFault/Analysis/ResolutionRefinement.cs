@@ -163,6 +163,7 @@ internal static class ResolutionRefinement
             best = ModelFitter.Fit(refit, fine, variance, cancellation: cancellation);
             bestBic = Bic(best);
             trials++;
+            ModelSelection.DebugTrace?.Invoke($"refinement: refit {best.Iterations} iterations, converged {best.Converged}, bic {bestBic:0.0}");
         }
         best = CoincidentEvents.Resolve(best, fine, variance, fineRiseSeconds, ref trials, cancellation);
         best = ModelSelection.WithoutEventsPastEnd(best, fine, variance, ref trials, cancellation);
