@@ -68,11 +68,12 @@ public static class CompareCommand
                 Tolerances = CheckOptions.Tolerances(kind, parsed.GetValue(toleranceReflection), parsed.GetValue(toleranceDistance),
                     parsed.GetValue(window), parsed.GetValue(toleranceDistancePct), parsed.GetValue(toleranceLengthPct), parsed.GetValue(toleranceZ0Pct)),
             };
+            var unit = DistanceUnit.Parse(parsed.GetValue(units));
+            options = options with { WarningsInFeet = unit == DistanceUnit.Feet };
             var result = RepairCheck.Compare(baseline.Trace.WithMetadata("file", baseline.Name),
                 current.Trace.WithMetadata("file", current.Name), options);
             foreach (string w in result.Warnings) context.Warn(w);
 
-            var unit = DistanceUnit.Parse(parsed.GetValue(units));
             if (parsed.GetValue(format) == "json") WriteJson(result, baseline.Name, current.Name, context.Output);
             else WriteText(result, baseline.Name, current.Name, unit, context.Output);
             PlotOutput.Write(parsed.GetValue(png), parsed.GetValue(svg),

@@ -97,6 +97,7 @@ public static class ReportCommand
                     CableDesignation = settings.Cable?.Designation,
                     Library = library,
                     ReferenceKind = ReferenceKindNames.Parse(parsed.GetValue(referenceKind)!),
+                    WarningsInFeet = unit == DistanceUnit.Feet,
                 };
                 try
                 {

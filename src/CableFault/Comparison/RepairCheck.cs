@@ -35,7 +35,7 @@ public static class RepairCheck
         warnings.AddRange(pair.Warnings);
         options.CancellationToken.ThrowIfCancellationRequested();
 
-        var locateOptions = settings.ToLocateOptions() with { CancellationToken = options.CancellationToken };
+        var locateOptions = settings.ToLocateOptions() with { CancellationToken = options.CancellationToken, WarningsInFeet = options.WarningsInFeet };
         var locB = Locator.Locate(pair.Baseline, locateOptions);
         var locC = Locator.Locate(pair.Current, locateOptions);
         Trace referenceTrace = pair.Baseline, currentTrace = pair.Current;
@@ -60,7 +60,7 @@ public static class RepairCheck
                 locC = Locator.Locate(currentTrace, locateOptions);
                 spread = spread with { LengthScale = f, LengthFitted = true, LengthFitDistanceMeters = anchorMeters };
                 warnings.Add(Invariant(
-                    $"the current trace's time axis was scaled by 1/{f:0.0000} to line it up with the {noun} around {anchorMeters:0.00} m (electrical length {S((f - 1) * 100, 2)} %); a fault within ±{tol.LengthFraction * 100:0.#} % of that point would look the same"));
+                    $"the current trace's time axis was scaled by 1/{f:0.0000} to line it up with the {noun} around {locateOptions.WarningDistance(anchorMeters, "0.00")} (electrical length {S((f - 1) * 100, 2)} %); a fault within ±{tol.LengthFraction * 100:0.#} % of that point would look the same"));
             }
             else
             {
@@ -91,7 +91,7 @@ public static class RepairCheck
         var eventsC = OnTheRun(locC, blind, out double endC);
         int beyond = locB.Events.Count + locC.Events.Count - eventsB.Count - eventsC.Count;
         if (beyond > 0)
-            warnings.Add(Invariant($"{beyond} event(s) found beyond the end of the run ({endB:0.00} m baseline, {endC:0.00} m current) or in the blind zone were left out: past an open or short end they can only be re-reflections"));
+            warnings.Add(Invariant($"{beyond} event(s) found beyond the end of the run ({locateOptions.WarningDistance(endB, "0.00")} baseline, {locateOptions.WarningDistance(endC, "0.00")} current) or in the blind zone were left out: past an open or short end they can only be re-reflections"));
         var changes = CompareEvents(eventsB, eventsC, tol, PeakNear, requireTraceEvidence: kind == ReferenceKind.Pair);
 
         // A change alters everything after it (transmitted level, later echoes): a region is explained by any change

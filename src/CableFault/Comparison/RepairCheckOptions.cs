@@ -57,6 +57,10 @@ public sealed record RepairCheckOptions
     /// <summary>Noise band half-width in σ of the combined noise (&gt; 0).</summary>
     public double NoiseBandSigmas { get; init; } = DefaultNoiseBandSigmas;
 
+    /// <summary>Distances in the warnings in feet instead of metres (what the user asked to see); the results stay in
+    /// metres.</summary>
+    public bool WarningsInFeet { get; init; }
+
     /// <summary>Cancels the comparison.</summary>
     public CancellationToken CancellationToken { get; init; }
 

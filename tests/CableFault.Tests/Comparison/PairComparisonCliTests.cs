@@ -48,6 +48,32 @@ public class PairComparisonCliTests : IDisposable
         Assert.Equal(JsonValueKind.Null, root.GetProperty("first_difference_m").ValueKind);
     }
 
+    /// <summary>
+    /// With feet asked for, the warnings speak feet too: the length fit's "around X" point is the metre figure over
+    /// 0.3048 m/ft (the international foot, exact by definition), to the two decimals printed, and no warning (the
+    /// comparison's own or the locator's, passed on) names a distance in metres.
+    /// </summary>
+    [Fact]
+    public void WarningsGiveTheirDistancesInFeetWhenAsked()
+    {
+        string reference = Reference(), healthy = Healthy();
+        var inMeters = CliRunner.Run("compare", reference, healthy, "--reference-kind", "pair");
+        var inFeet = CliRunner.Run("compare", reference, healthy, "--reference-kind", "pair", "--units", "ft");
+        Assert.True(inFeet.ExitCode is 0 or 1, inFeet.Output + inFeet.Error);
+
+        double meters = StretchPoint(inMeters.Error, "m"), feet = StretchPoint(inFeet.Error, "ft");
+        Assert.InRange(feet, meters / 0.3048 - 0.02, meters / 0.3048 + 0.02);
+        Assert.DoesNotMatch(@"\d m\b", inFeet.Error);
+    }
+
+    /// <summary>The point the current trace was lined up around, from the length fit's warning, in <paramref name="unit"/>.</summary>
+    private static double StretchPoint(string error, string unit)
+    {
+        var match = System.Text.RegularExpressions.Regex.Match(error, @"around ([0-9.]+) " + unit + @" \(electrical length");
+        Assert.True(match.Success, $"no length-fit warning in {unit}: {error}");
+        return double.Parse(match.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture);
+    }
+
     [Fact]
     public void DefaultKindIsBaselineAndItsJsonHasNoPairBlock()
     {
