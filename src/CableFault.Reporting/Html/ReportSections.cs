@@ -193,7 +193,7 @@ internal static class ReportSections
         {
             html.Append("<ul class=\"note\">\n");
             foreach (string warning in comparison.Warnings)
-                html.Append("<li>").Append(HtmlText.Escape(ReportNumbers.ConvertMeters(warning, unit))).Append("</li>\n");
+                html.Append("<li>").Append(HtmlText.Escape(AsSentence(ReportNumbers.ConvertMeters(warning, unit)))).Append("</li>\n");
             html.Append("</ul>\n");
         }
     }
@@ -282,6 +282,10 @@ internal static class ReportSections
                $"{ReportNumbers.AttenuationPer100(s.Loss.AttenuationDbPer100m(1e9), unit)} at 1 GHz{name}";
     }
 
+    /// <summary>A warning as a list item's sentence: the analysis writes them to follow "warning: ", lower-case.</summary>
+    private static string AsSentence(string warning) =>
+        warning.Length > 0 ? char.ToUpperInvariant(warning[0]) + warning[1..] : warning;
+
     internal static void Notes(StringBuilder html, int number, ReportInput input)
     {
         var warnings = input.Settings.Warnings.Concat(input.Result.Warnings).Distinct().ToList();
@@ -293,7 +297,7 @@ internal static class ReportSections
         }
         html.Append("<ul>\n");
         foreach (string warning in warnings)
-            html.Append("<li>").Append(HtmlText.Escape(ReportNumbers.ConvertMeters(warning, input.Unit))).Append("</li>\n");
+            html.Append("<li>").Append(HtmlText.Escape(AsSentence(ReportNumbers.ConvertMeters(warning, input.Unit)))).Append("</li>\n");
         html.Append("</ul>\n");
     }
 

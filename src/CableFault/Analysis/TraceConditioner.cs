@@ -89,7 +89,7 @@ public static class TraceConditioner
         if (plateauEnd - plateauStart < 3)
         {
             plateauEnd = Math.Min(n, plateauStart + 3);
-            warnings.Add("An echo follows the incident edge within about a rise time; the incident level and near-end events are less certain.");
+            warnings.Add("an echo follows the incident edge within about a rise time; the incident level and near-end events are less certain.");
         }
 
         // 4. State levels (IEEE 181 histogram mode) and noise.
@@ -102,7 +102,7 @@ public static class TraceConditioner
             : sigmaAll > 0 ? sigmaAll : NoiseEstimator.FromDifferences(x.AsSpan(0, preEnd));
         if (preEnd < RecommendedBaselineSamples)
         {
-            warnings.Add($"Only {preEnd} samples of baseline before the incident edge (recommended ≥ {RecommendedBaselineSamples}); the baseline level is less certain — set a longer pre-trigger delay.");
+            warnings.Add($"only {preEnd} samples of baseline before the incident edge (recommended ≥ {RecommendedBaselineSamples}); the baseline level is less certain — set a longer pre-trigger delay.");
         }
         if (!(Math.Abs(amplitude) >= MinimumEdgeSignalToNoise * noise) || Math.Abs(amplitude) < 0.2 * excursion || amplitude * sign <= 0)
             throw NoEdge(where, noise);
@@ -123,7 +123,7 @@ public static class TraceConditioner
         if (!double.IsFinite(riseSamples) || riseSamples <= 0)
         {
             riseSamples = Math.Max(1, 0.6 * width);
-            warnings.Add("The 10–90 % rise time could not be read cleanly; an estimate from the edge width is used.");
+            warnings.Add("the 10–90 % rise time could not be read cleanly; an estimate from the edge width is used.");
         }
 
         // 6. Clipping, noise and the end of the record.
@@ -135,14 +135,14 @@ public static class TraceConditioner
         {
             if (plateauStart <= clipStart + ClipRunSamples && clipStart < plateauEnd || Math.Abs(top - clipLevel) < 3 * noise + 1e-12 * Math.Abs(top))
                 throw new InputException($"{where}: the incident step is clipped at {Fmt(clipLevel)} V, so its height is unknown — reduce the input range's sensitivity or attenuate the signal.");
-            warnings.Add($"The trace is clipped at {Fmt(clipLevel)} V from {Fmt(raw.TimeAt(clipStart))} s; echoes there are cut off and their sizes are under-read — widen the input range.");
+            warnings.Add($"the trace is clipped at {Fmt(clipLevel)} V from {Fmt(raw.TimeAt(clipStart))} s; echoes there are cut off and their sizes are under-read — widen the input range.");
         }
         if (noise > HeavyNoiseFraction * Math.Abs(amplitude))
-            warnings.Add($"Heavy noise: {Fmt(100 * noise / Math.Abs(amplitude))} % of the step; faults smaller than |Δρ| ≈ {Fmt(5 * noise / Math.Abs(amplitude))} cannot be seen — average more sweeps (noise falls as 1/√N).");
+            warnings.Add($"heavy noise: {Fmt(100 * noise / Math.Abs(amplitude))} % of the step; faults smaller than |Δρ| ≈ {Fmt(5 * noise / Math.Abs(amplitude))} cannot be seen — average more sweeps (noise falls as 1/√N).");
         if (StillMovingAtEnd(xs, noise, Math.Abs(amplitude)))
-            warnings.Add("The level is still changing at the end of the record; the far end may lie beyond it — record a longer time window.");
+            warnings.Add("the level is still changing at the end of the record; the far end may lie beyond it — record a longer time window.");
         if (inverted)
-            warnings.Add("The incident edge falls (inverted polarity); the trace is inverted before analysis.");
+            warnings.Add("the incident edge falls (inverted polarity); the trace is inverted before analysis.");
 
         double timeZero = raw.StartTimeSeconds + mid * dt;
         return new TraceCharacteristics(timeZero, baseline, Math.Abs(amplitude), riseSamples * dt, noise, inverted, clipped, warnings);
