@@ -211,7 +211,7 @@ public static class ForwardModel
     /// estimate (|E| = e^−37 where σ_b²(ω² − σ²)/2 = 37) rather than from bin 0: the same answer for a few tests instead of
     /// thousands per model run.
     /// </summary>
-    private static int CountBins(EdgeShape shape, double rise, double sigma, double dOmega, int lastBin)
+    internal static int CountBins(EdgeShape shape, double rise, double sigma, double dOmega, int lastBin)
     {
         bool Negligible(int k) => StimulusSpectrum.IsNegligible(shape, rise, new Complex(sigma, k * dOmega));
         double estimate = StimulusSpectrum.NegligibleAboveRadiansPerSecond(shape, rise, sigma) / dOmega;

@@ -109,6 +109,25 @@ public class SweepCacheTests
         for (long m = Math.Max(2, needed); m < fast; m++) Assert.False(IsFast(m), $"{m} is fast and below {fast}");
     }
 
+    /// <summary>The bin count found from its closed form is the one a bin-by-bin search from 0 finds, for either edge,
+    /// contours with and without a cap, and grids whose Nyquist bin comes before the cut-off.</summary>
+    [Fact]
+    public void BinCountFromItsClosedFormMatchesTheSearchFromZero()
+    {
+        var random = new Random(5);
+        for (int trial = 0; trial < 400; trial++)
+        {
+            var shape = trial % 2 == 0 ? EdgeShape.Gaussian : EdgeShape.Linear;
+            double rise = Math.Pow(10, -10.5 + 2 * random.NextDouble());
+            double dOmega = Math.Pow(10, 5 + 3 * random.NextDouble());
+            double sigma = random.NextDouble() * 20 * dOmega;
+            int lastBin = random.Next(1, 40_000);
+            int searched = 0;
+            while (searched <= lastBin && !StimulusSpectrum.IsNegligible(shape, rise, new Complex(sigma, searched * dOmega))) searched++;
+            Assert.Equal(searched, ForwardModel.CountBins(shape, rise, sigma, dOmega, lastBin));
+        }
+    }
+
     [Theory]
     [InlineData(11, false)]
     [InlineData(12, true)]
