@@ -177,7 +177,8 @@ internal static class ModelSelection
         double logN = LogSampleCount(data);
         double Bic(ModelFit f) => Criterion(f, data, variance);
         int trials = 0;
-        string Key(RunModel m) => string.Join(",", m.Events.Select(e => $"{e.Element}@{Math.Round(e.RoundTripSeconds / effectiveRiseSeconds)}"));
+        string Key(RunModel m) => string.Join(",", m.Events.Select(e => $"{e.Element}@{Math.Round(e.RoundTripSeconds / effectiveRiseSeconds)}"))
+            + (m.Context.ResistiveEnd ? ",R" : "");
         var tried = new HashSet<string> { Key(initial) };
         // A further condition on a trial's fitted model (set by a move for its own trials only).
         Func<RunModel, bool>? acceptIf = null;
@@ -286,6 +287,7 @@ internal static class ModelSelection
         }
         TryEnds();
         Prune();
+        TryResistiveEnd();
 
         // Fits several candidates (side by side: each is judged against the current model alone) and accepts the best
         // if it beats the current model.
@@ -388,6 +390,7 @@ internal static class ModelSelection
             TryEnds();
         }
 
+        TryResistiveEnd();
         Prune();
         ExtremePairsToSpots();
         TruncateAtTotalReflection();
@@ -427,6 +430,24 @@ internal static class ModelSelection
                 }
                 if (TryBest(variants.Select(v => m.WithEvents(v)).ToList(), simpler: true, 0)) return;
             }
+        }
+
+        // On a lossy cable a run that ends in a resistor (a termination, a camera, an antenna) and one that goes on beyond
+        // the record in a line of that impedance leave different slow tails (see RunModelContext.ResistiveEnd), and a
+        // model of the wrong one soaks the difference up in extra events near and beyond the end. So the resistor is
+        // tried on the first fit (before those events are added) and again on the selected model; each time as the model
+        // stands (as many parameters: it must win by the margin) and, as for an open or a short, at each clear boundary
+        // with what lies beyond it taken for its echoes (fewer parameters: it need only not lose).
+        void TryResistiveEnd()
+        {
+            var m = best.Model;
+            if (m.Context.Loss is null || m.Context.ResistiveEnd || m.Events.Count == 0 || m.Events[^1].EndsRun) return;
+            var context = m.Context with { ResistiveEnd = true };
+            var candidates = new List<RunModel> { m.WithContext(context) };
+            for (int i = 0; i + 1 < m.Events.Count; i++)
+                if (m.Events[i].Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, i)) >= EndTrialReflection)
+                    candidates.Add(m.WithEvents(m.Events.Take(i + 1)).WithContext(context));
+            TryBest(candidates, simpler: null, 0);
         }
 
         // A lumped C or L, or a row of them, may be a short section of other cable (see ReactiveSections). Every one is

@@ -232,7 +232,7 @@ internal sealed class RunModel
             }
         }
         elements.Add(new CableSegment(TailMeters, Medium(impedance)));
-        elements.Add(RunEnd.Matched);
+        elements.Add(c.ResistiveEnd ? RunEnd.Resistor(impedance) : RunEnd.Matched);
         return new NetworkBranch(elements);
     }
 

@@ -17,9 +17,13 @@ namespace CableFault.Analysis;
 /// <param name="SettlingSeconds">Time constant of that settling, s.</param>
 /// <param name="EstimateSettling">True while the settling's two numbers are parameters of the run model (the probe of
 /// <see cref="SettlingEstimation"/>).</param>
+/// <param name="ResistiveEnd">True when a run that ends in neither an open, a short nor a tap ends in a resistor of the
+/// last line impedance (a termination or a device), false when the last line goes on matched beyond the record. The
+/// two differ only on a lossy cable: its characteristic impedance Z_c(s) = √((R′ + sL′)/(G′ + sC′)) departs from the
+/// nominal one at low frequencies, so a resistor there reflects slowly where a continuing line does not.</param>
 internal sealed record RunModelContext(double VelocityFactor, double ImpedanceOhms, double SourceImpedanceOhms,
     CableLossModel? Loss, double ReferenceRiseSeconds, double ReferenceAmplitudeVolts, bool EstimateLoss = false,
-    double SettlingFraction = 0, double SettlingSeconds = 0, bool EstimateSettling = false)
+    double SettlingFraction = 0, double SettlingSeconds = 0, bool EstimateSettling = false, bool ResistiveEnd = false)
 {
     /// <summary>Scale of an estimated settling fraction: 1 % of the step (common practice for a step generator's creep;
     /// from memory).</summary>
