@@ -118,7 +118,7 @@ public static class BothEndsLocation
             double d = length * x.Seconds / t;
             double sigma = Math.Sqrt(Math.Pow(length / t * x.Sigma, 2) + Math.Pow(d / t * tSigma, 2) + Math.Pow(d / length * sigmaL, 2));
             events.Add(new BothEndsEvent(d, sigma, SeenFrom.EndAOnly, x.Event, null));
-            warnings.Add(string.Create(CultureInfo.InvariantCulture, $"event at {d:0.###} m from A is seen from end A only; its position uses the end-to-end time, check it"));
+            warnings.Add(string.Create(CultureInfo.InvariantCulture, $"event at {fromA.Options.WarningDistance(d)} from A is seen from end A only; its position uses the end-to-end time, check it"));
         }
         foreach (var y in b.Where(y => !usedB.Contains(y)))
         {
@@ -126,7 +126,7 @@ public static class BothEndsLocation
             double d = length - dB;
             double sigma = Math.Sqrt(Math.Pow(length / t * y.Sigma, 2) + Math.Pow(dB / t * tSigma, 2) + Math.Pow(d / length * sigmaL, 2));
             events.Add(new BothEndsEvent(d, sigma, SeenFrom.EndBOnly, null, y.Event));
-            warnings.Add(string.Create(CultureInfo.InvariantCulture, $"event at {d:0.###} m from A is seen from end B only; its position uses the end-to-end time, check it"));
+            warnings.Add(string.Create(CultureInfo.InvariantCulture, $"event at {fromA.Options.WarningDistance(d)} from A is seen from end B only; its position uses the end-to-end time, check it"));
         }
 
         double c = PhysicalConstants.SpeedOfLightMetersPerSecond;

@@ -151,6 +151,26 @@ public sealed class BothEndsLocationTests(ITestOutputHelper output)
         Assert.InRange(flagged.DistanceFromAMeters, fault - Math.Max(TargetRelative * fault, TargetFloorMeters), fault + Math.Max(TargetRelative * fault, TargetFloorMeters));
     }
 
+    /// <summary>With feet asked for (the locate options of end A carry it, as the CLI's --units ft sets them), the
+    /// one-sided event's warning gives its distance from A in feet: the metre figure over 0.3048 m/ft (the
+    /// international foot, exact by definition), to the three decimals printed.</summary>
+    [Fact]
+    public void TheOneSidedWarningSpeaksFeetWhenAsked()
+    {
+        const double length = 20, fault = 6;
+        var settings = Instrument(length);
+        var fromA = LocateWrongVf(ForwardModel.Simulate(Run("shunt 100 Ω", fault, length), settings));
+        var fromB = LocateWrongVf(ForwardModel.Simulate(new CableNetwork(new NetworkBranch(new CableSegment(length, Coax), RunEnd.Open)), settings));
+        var inFeet = BothEndsLocation.Combine(fromA with { Options = fromA.Options with { WarningsInFeet = true } }, fromB, length);
+
+        var flagged = Assert.Single(inFeet.Events);
+        var warning = Assert.Single(inFeet.Warnings, w => w.Contains("end A only", StringComparison.Ordinal));
+        var match = System.Text.RegularExpressions.Regex.Match(warning, @"event at ([0-9.]+) ft from A");
+        Assert.True(match.Success, warning);
+        double feet = double.Parse(match.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture);
+        Assert.InRange(feet, flagged.DistanceFromAMeters / 0.3048 - 0.002, flagged.DistanceFromAMeters / 0.3048 + 0.002);
+    }
+
     [Fact]
     public void ReversalPutsTheLumpedPartAtTheMirroredPosition()
     {
