@@ -13,27 +13,16 @@ public static class BenchmarkNetworks
     public static CableNetwork TenElements()
     {
         var coax = BuiltInCableTypes.All.First(t => t.Designation == "RG-58").Medium;
-        var other = new CableMedium(75, 0.66, coax.Loss);
-        return new CableNetwork(new NetworkBranch(
-            new CableSegment(20, coax),
-            new ShuntCapacitor(8e-12),
-            new CableSegment(15, coax),
-            new SeriesInductor(25e-9),
-            new CableSegment(3, other),
-            new ShuntResistor(500),
-            new CableSegment(10, coax),
-            new Junction([
-                new NetworkBranch(new CableSegment(12, coax), RunEnd.Open),
-                new NetworkBranch(new CableSegment(7, coax), RunEnd.Resistor(100)),
-            ])), "benchmark ten-element run");
+        return TenElements(coax, new CableMedium(75, 0.66, coax.Loss), "benchmark ten-element run");
     }
 
-    /// <summary><see cref="TenElements"/> on lossless cable (a fit with the loss not given, or a short run).</summary>
-    public static CableNetwork TenElementsLossless()
-    {
-        var coax = new CableMedium(50, 0.66);
-        var other = new CableMedium(75, 0.66);
-        return new CableNetwork(new NetworkBranch(
+    /// <summary><see cref="TenElements()"/> on lossless cable (a fit with the loss not given, or a short run).</summary>
+    public static CableNetwork TenElementsLossless() =>
+        TenElements(new CableMedium(50, 0.66), new CableMedium(75, 0.66), "benchmark ten-element lossless run");
+
+    /// <summary>The ten elements on <paramref name="coax"/>, with a 3 m piece of <paramref name="other"/>.</summary>
+    private static CableNetwork TenElements(CableMedium coax, CableMedium other, string name) =>
+        new(new NetworkBranch(
             new CableSegment(20, coax),
             new ShuntCapacitor(8e-12),
             new CableSegment(15, coax),
@@ -44,6 +33,5 @@ public static class BenchmarkNetworks
             new Junction([
                 new NetworkBranch(new CableSegment(12, coax), RunEnd.Open),
                 new NetworkBranch(new CableSegment(7, coax), RunEnd.Resistor(100)),
-            ])), "benchmark ten-element lossless run");
-    }
+            ])), name);
 }

@@ -32,7 +32,7 @@ public class ForwardModelBenchmark
         _fftSource = Enumerable.Range(0, SampleCount).Select(_ => new Complex(random.NextDouble(), random.NextDouble())).ToArray();
         _fftBuffer = new Complex[SampleCount];
         _lossless = new CompiledNetwork(BenchmarkNetworks.TenElementsLossless());
-        // A fit's model run on a long record's sharper look: 6 000 samples two effective σ apart, the undamping capped.
+        // A fit's model run on a long record's sharper look: 6 000 samples half an effective σ apart, the undamping capped.
         double fitRise = 3.8e-9;
         _fitSettings = new InstrumentSettings
         {
