@@ -131,42 +131,23 @@ internal sealed class ColumnObjective(double[] observed, double weight, Func<dou
         for (int i = 0; i < residual.Length; i++) residual[i] = observed[i] - f[i];
         var g = new double[p];
         var h = new double[p, p];
-        void Row(int j)
+        var active = Enumerable.Range(0, p).Where(j => !isFixed[j]).ToArray();
+        // The p(p + 1)/2 dot products are a large share of a long fit's LM step: taken a block of samples at a time,
+        // spread over the cores, each bit for bit the plain dot product (see ColumnProducts).
+        var (gram, withResidual) = ColumnProducts.Compute(active.Select(j => columns[j]).ToArray(), residual);
+        for (int a = 0; a < active.Length; a++)
         {
-            if (isFixed[j]) return;
-            g[j] = -weight * Dot(columns[j], residual) / columnFactors[j];
-            for (int k = 0; k <= j; k++)
+            int j = active[a];
+            g[j] = -weight * withResidual[a] / columnFactors[j];
+            for (int b = 0; b <= a; b++)
             {
-                if (isFixed[k]) continue;
-                double hjk = weight * Dot(columns[j], columns[k]) / (columnFactors[j] * columnFactors[k]);
+                int k = active[b];
+                double hjk = weight * gram[a][b] / (columnFactors[j] * columnFactors[k]);
                 h[j, k] = hjk;
                 h[k, j] = hjk;
             }
         }
-        // The p(p + 1)/2 dot products are a tenth of a long fit's time and the only part of an LM step not already
-        // spread over the cores (the Jacobian's columns are): rows side by side when they are long enough to pay for it.
-        // Every entry is the same dot product either way, so the result does not depend on the split.
-        if ((long)observed.Length * p * p >= ParallelDotsMinimumWork)
-            Parallel.For(0, p, Row);
-        else
-            for (int j = 0; j < p; j++) Row(j);
         gradient = Vector<double>.Build.DenseOfArray(g);
         hessian = Matrix<double>.Build.DenseOfArray(h);
-    }
-
-    /// <summary>Samples × parameters² above which the Gauss–Newton products are formed in parallel (about 10⁵
-    /// multiply-adds per core: well above the cost of handing rows to the thread pool).</summary>
-    private const long ParallelDotsMinimumWork = 400_000;
-
-    /// <summary>Σ aᵢ·bᵢ, vectorised.</summary>
-    private static double Dot(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
-    {
-        int width = System.Numerics.Vector<double>.Count, i = 0;
-        var sum = System.Numerics.Vector<double>.Zero;
-        for (; i + width <= a.Length; i += width)
-            sum += new System.Numerics.Vector<double>(a.Slice(i, width)) * new System.Numerics.Vector<double>(b.Slice(i, width));
-        double total = System.Numerics.Vector.Dot(sum, System.Numerics.Vector<double>.One);
-        for (; i < a.Length; i++) total += a[i] * b[i];
-        return total;
     }
 }
