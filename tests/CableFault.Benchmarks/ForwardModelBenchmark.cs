@@ -57,4 +57,39 @@ public class ForwardModelBenchmark
     [Benchmark(Description = "fit's model run, lossless 10 elements, 6000 samples")]
     public double FitModelRunLossless() =>
         ForwardModel.SimulateSamples(_lossless, _fitSettings, _cache, ForwardModel.FitMaximumUndamping)[^1];
+
+    /// <summary>The inverse transform alone at the fit's length: the share of a fit's model run no network change can save.</summary>
+    [Benchmark(Description = "fit's inverse FFT alone, 6000 samples")]
+    public double FitInverseFft()
+    {
+        int m = (int)InverseFft.FastLength(6_000 + 20);
+        InverseFft.Real(_fftSource.AsSpan(0, m / 2 + 1), m, _fitBuffer);
+        return _fitBuffer[1];
+    }
+
+    private readonly double[] _fitBuffer = new double[8192];
+
+    /// <summary>One LM step's gradient and Gauss–Newton matrix (JᵀJ) for a long fit: 6 000 samples, 27 parameters.</summary>
+    [Benchmark(Description = "fit's JᵀJ and gradient, 6000 samples × 27 parameters")]
+    public double GaussNewtonProducts()
+    {
+        _objective ??= NewObjective();
+        _objective.EvaluateAt(MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(27, 0.5));
+        return _objective.Hessian[26, 0] + _objective.Gradient[3];
+    }
+
+    private CableFault.Analysis.ColumnObjective? _objective;
+
+    private static CableFault.Analysis.ColumnObjective NewObjective()
+    {
+        const int n = 6_000, p = 27;
+        var random = new Random(11);
+        double[] Column() => Enumerable.Range(0, n).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var observed = Column();
+        var model = Column();
+        var columns = Enumerable.Range(0, p).Select(_ => Column()).ToArray();
+        var objective = new CableFault.Analysis.ColumnObjective(observed, 1e6, _ => model, _ => columns, Enumerable.Repeat(1.0, p).ToArray());
+        objective.SetParameters(MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(p));
+        return objective;
+    }
 }

@@ -61,8 +61,16 @@ public static class TraceDiagnosis
         Locator.Locate(trace, options);
         long before = RunModel.SimulationCount;
         var watch = System.Diagnostics.Stopwatch.StartNew();
+        // Processor time beside the wall time: their ratio is how many cores the stage kept busy.
+        var process = System.Diagnostics.Process.GetCurrentProcess();
+        var cpuBefore = process.TotalProcessorTime;
+        double CpuMilliseconds()
+        {
+            process.Refresh();
+            return (process.TotalProcessorTime - cpuBefore).TotalMilliseconds;
+        }
         ModelSelection.DebugTrace = m => Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-            $"    [{watch.Elapsed.TotalMilliseconds,6:0} ms {RunModel.SimulationCount - before,5} runs] {m}"));
+            $"    [{watch.Elapsed.TotalMilliseconds,6:0} ms cpu {CpuMilliseconds(),6:0} ms {RunModel.SimulationCount - before,5} runs] {m}"));
         var result = Locator.Locate(trace, options);
         foreach (var e in result.Events)
             Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {e.DistanceMeters,9:0.000} m  {EventKindNames.ToJsonName(e.Kind),-18} ρ {e.Reflection:+0.000;-0.000}  conf {e.Confidence:0.00}"));
