@@ -32,11 +32,6 @@ public static class ForwardModel
     /// </summary>
     internal const double FitMaximumUndamping = 1e4;
 
-    /// <summary>Bins per range of a cached sweep handed to one core: a multiple of 256 (see
-    /// NetworkEvaluator.ApplyLosslessSegment), and a few hundred microseconds of work on a fit's usual grids, far above
-    /// the cost of handing it to the thread pool.</summary>
-    private const int SweepChunkBins = 512;
-
     /// <summary>Simulates the trace. Throws <see cref="ArgumentException"/> listing every problem if the network or settings are invalid.</summary>
     public static Trace Simulate(CableNetwork network, InstrumentSettings settings)
     {
@@ -145,45 +140,23 @@ public static class ForwardModel
             var grid = new SweepCache.Grid(m, sigma, dOmega, bins);
             var (edge, delays) = cache.Stimulus(grid, settings.EdgeShape, rise, edgeCentre, settings.SettlingFraction,
                 settings.SettlingTimeConstantSeconds);
-            NetworkEvaluator.PrepareSweep(network, cache, grid);
-            int depth = network.MaxStackDepth + 1;
-            var stackN = new Complex[depth][];
-            var stackD = new Complex[depth][];
-            for (int level = 0; level < depth; level++)
-            {
-                stackN[level] = SweepBuffers<Complex>.Rent(bins);
-                stackD[level] = SweepBuffers<Complex>.Rent(bins);
-            }
+            var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid);
             // The spectrum overwrites N bin by bin (each bin reads only its own N and D).
-            var ys = stackN[0];
-            void Chunk(int firstBin, int endBin)
+            var ys = ns;
+            for (int k = 0; k < bins; k++)
             {
-                NetworkEvaluator.EvaluateSweep(network, cache, grid, stackN, stackD, firstBin, endBin);
-                Complex[] ns = stackN[0], ds = stackD[0];
-                for (int k = firstBin; k < endBin; k++)
-                {
-                    // The same operations in the same order as the uncached loop below.
-                    var s = new Complex(sigma, k * dOmega);
-                    Complex n = ns[k];
-                    Complex h = ComplexMath.Divide(n, zs * ds[k] + n);
-                    Complex y = ComplexMath.Divide(ComplexMath.Multiply(ComplexMath.Multiply(h * 2 * amplitude, edge[k]), delays[k]), s);
-                    if (k == m / 2) y = new Complex(y.Real, 0);
-                    ys[k] = y;
-                }
+                // The same operations in the same order as the uncached loop below.
+                var s = new Complex(sigma, k * dOmega);
+                Complex n = ns[k];
+                Complex h = ComplexMath.Divide(n, zs * ds[k] + n);
+                Complex y = ComplexMath.Divide(ComplexMath.Multiply(ComplexMath.Multiply(h * 2 * amplitude, edge[k]), delays[k]), s);
+                if (k == m / 2) y = new Complex(y.Real, 0);
+                ys[k] = y;
             }
-            // Bins are independent, so ranges of them run side by side and give the same numbers as one sweep: the fit's
-            // serial runs (LM's trial points, the last column of a Jacobian) then use both cores. Ranges start at
-            // multiples of 256, where a lossless segment refreshes its phasor anyway.
-            int chunks = (bins + SweepChunkBins - 1) / SweepChunkBins;
-            if (chunks <= 1) Chunk(0, bins);
-            else Parallel.For(0, chunks, c => Chunk(c * SweepChunkBins, Math.Min(bins, (c + 1) * SweepChunkBins)));
             pooled = SweepBuffers<double>.Rent(m);
             InverseFft.Real(ys.AsSpan(0, bins), m, pooled);
-            for (int level = 0; level < depth; level++)
-            {
-                SweepBuffers<Complex>.Return(stackN[level]);
-                SweepBuffers<Complex>.Return(stackD[level]);
-            }
+            SweepBuffers<Complex>.Return(ns);
+            SweepBuffers<Complex>.Return(ds);
             transformed = pooled;
         }
         else

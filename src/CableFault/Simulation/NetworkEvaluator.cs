@@ -76,36 +76,18 @@ internal sealed class NetworkEvaluator
         return (_stackN[0], _stackD[0]);
     }
 
-    /// <summary>Fetches into <paramref name="cache"/> every per-bin table the network's sweep reads, so that chunks of
-    /// bins evaluated side by side find them there instead of each computing the whole table.</summary>
-    internal static void PrepareSweep(CompiledNetwork network, SweepCache cache, SweepCache.Grid grid)
-    {
-        foreach (var op in network.Ops)
-        {
-            if (op.Kind == CompiledNetwork.OpKind.Matched) cache.Medium(grid, network.Media[op.Medium]);
-            else if (op.Kind == CompiledNetwork.OpKind.Segment && !network.Media[op.Medium].IsLossless)
-                cache.Segment(grid, network.Media[op.Medium], op.Value);
-        }
-    }
-
     /// <summary>
-    /// Input impedance pairs at bins <paramref name="firstBin"/> ≤ k &lt; <paramref name="endBin"/> of
-    /// <paramref name="grid"/>, with the per-bin propagation and segment matrices taken from <paramref name="cache"/>: the
-    /// same arithmetic as <see cref="Evaluate"/> without its transcendental calls. Each bin's numbers do not depend on the
-    /// range it was evaluated in, so disjoint ranges may run side by side on the same stack arrays.
+    /// Input impedance pairs at every bin of <paramref name="grid"/>, with the per-bin propagation and segment matrices
+    /// taken from <paramref name="cache"/>: the same arithmetic as <see cref="Evaluate"/> without its transcendental calls.
     /// </summary>
-    /// <param name="network">The compiled run.</param>
-    /// <param name="cache">Per-bin tables (see <see cref="PrepareSweep"/>).</param>
-    /// <param name="grid">The contour.</param>
-    /// <param name="stackN">One array per stack level (<see cref="CompiledNetwork.MaxStackDepth"/> + 1), each holding every
-    /// bin: level 0 ends with the input pair's N.</param>
-    /// <param name="stackD">As <paramref name="stackN"/>, for D.</param>
-    /// <param name="firstBin">First bin of the range; a multiple of 256 (see <see cref="ApplyLosslessSegment"/>).</param>
-    /// <param name="endBin">One past the last bin of the range.</param>
-    internal static void EvaluateSweep(CompiledNetwork network, SweepCache cache, SweepCache.Grid grid,
-        Complex[][] stackN, Complex[][] stackD, int firstBin, int endBin)
+    /// <returns>Arrays from <see cref="SweepBuffers{T}"/>, at least <see cref="SweepCache.Grid.BinCount"/> long
+    /// (entries past it are undefined): the caller returns them.</returns>
+    internal static (Complex[] N, Complex[] D) EvaluateSweep(CompiledNetwork network, SweepCache cache, SweepCache.Grid grid)
     {
         // Operations outer, bins inner: each operation is one tight loop over the bins (no dispatch per bin).
+        int bins = grid.BinCount;
+                var stackN = new Complex[network.MaxStackDepth + 1][];
+        var stackD = new Complex[network.MaxStackDepth + 1][];
         int top = -1;
         Complex S(int k) => new(grid.Sigma, k * grid.DOmega);
         foreach (var op in network.Ops)
@@ -116,52 +98,52 @@ internal sealed class NetworkEvaluator
                 case CompiledNetwork.OpKind.Open or CompiledNetwork.OpKind.Short or CompiledNetwork.OpKind.Resistor
                     or CompiledNetwork.OpKind.Matched or CompiledNetwork.OpKind.ResistorParallelCapacitor:
                     top++;
-                    n = stackN[top];
-                    d = stackD[top];
-                    var nBins = n.AsSpan(firstBin, endBin - firstBin);
-                    var dBins = d.AsSpan(firstBin, endBin - firstBin);
+                    n = stackN[top] = SweepBuffers<Complex>.Rent(bins);
+                    d = stackD[top] = SweepBuffers<Complex>.Rent(bins);
+                    var nBins = n.AsSpan(0, bins);
+                    var dBins = d.AsSpan(0, bins);
                     switch (op.Kind)
                     {
                         case CompiledNetwork.OpKind.Open: nBins.Fill(Complex.One); dBins.Clear(); break;
                         case CompiledNetwork.OpKind.Short: nBins.Clear(); dBins.Fill(Complex.One); break;
                         case CompiledNetwork.OpKind.Resistor: nBins.Fill(op.Value); dBins.Fill(Complex.One); break;
                         case CompiledNetwork.OpKind.Matched:
-                            cache.Medium(grid, network.Media[op.Medium]).Zc.AsSpan(firstBin, endBin - firstBin).CopyTo(nBins);
+                            cache.Medium(grid, network.Media[op.Medium]).Zc.AsSpan(0, bins).CopyTo(n);
                             dBins.Fill(Complex.One);
                             break;
                         default:
                             nBins.Fill(op.Value);
-                            for (int k = firstBin; k < endBin; k++) d[k] = 1 + S(k) * op.Value * op.Value2;
+                            for (int k = 0; k < bins; k++) d[k] = 1 + S(k) * op.Value * op.Value2;
                             break;
                     }
                     break;
                 case CompiledNetwork.OpKind.ShuntC:
                     n = stackN[top]; d = stackD[top];
-                    for (int k = firstBin; k < endBin; k++) d[k] += ComplexMath.Multiply(S(k) * op.Value, n[k]);
+                    for (int k = 0; k < bins; k++) d[k] += ComplexMath.Multiply(S(k) * op.Value, n[k]);
                     break;
                 case CompiledNetwork.OpKind.ShuntR:
                     n = stackN[top]; d = stackD[top];
-                    for (int k = firstBin; k < endBin; k++) d[k] += n[k] / op.Value;
+                    for (int k = 0; k < bins; k++) d[k] += n[k] / op.Value;
                     break;
                 case CompiledNetwork.OpKind.SeriesL:
                     n = stackN[top]; d = stackD[top];
-                    for (int k = firstBin; k < endBin; k++) n[k] += ComplexMath.Multiply(S(k) * op.Value, d[k]);
+                    for (int k = 0; k < bins; k++) n[k] += ComplexMath.Multiply(S(k) * op.Value, d[k]);
                     break;
                 case CompiledNetwork.OpKind.SeriesR:
                     n = stackN[top]; d = stackD[top];
-                    for (int k = firstBin; k < endBin; k++) n[k] += op.Value * d[k];
+                    for (int k = 0; k < bins; k++) n[k] += op.Value * d[k];
                     break;
                 case CompiledNetwork.OpKind.Segment:
                 {
                     n = stackN[top]; d = stackD[top];
                     if (network.Media[op.Medium].IsLossless)
                     {
-                        ApplyLosslessSegment(n, d, grid, network.Media[op.Medium], op.Value, firstBin, endBin);
+                        ApplyLosslessSegment(n, d, grid, network.Media[op.Medium], op.Value);
                         break;
                     }
                     var m = cache.Segment(grid, network.Media[op.Medium], op.Value);
                     Complex[] a = m.A, b = m.B, c = m.C;
-                    for (int k = firstBin; k < endBin; k++)
+                    for (int k = 0; k < bins; k++)
                         Apply(n, d, k, a[k], b[k], c[k]);
                     break;
                 }
@@ -170,7 +152,7 @@ internal sealed class NetworkEvaluator
                     {
                         Complex[] n1 = stackN[top - 1], d1 = stackD[top - 1], n2 = stackN[top], d2 = stackD[top];
                         top--;
-                        for (int k = firstBin; k < endBin; k++)
+                        for (int k = 0; k < bins; k++)
                         {
                             Complex nn = ComplexMath.Multiply(n1[k], n2[k]);
                             Complex dd = ComplexMath.Multiply(d1[k], n2[k]) + ComplexMath.Multiply(d2[k], n1[k]);
@@ -178,10 +160,13 @@ internal sealed class NetworkEvaluator
                             n1[k] = nn;
                             d1[k] = dd;
                         }
+                        SweepBuffers<Complex>.Return(n2);
+                        SweepBuffers<Complex>.Return(d2);
                     }
                     break;
             }
         }
+        return (stackN[0], stackD[0]);
     }
 
     /// <summary>
@@ -191,18 +176,16 @@ internal sealed class NetworkEvaluator
     /// cannot accumulate (≲ 256 ulp); Z_c is real, so C = sinh/Z_c is a scaling. Computed in place rather than kept in
     /// <see cref="SweepCache"/>: reading three stored complex arrays per bin cost more than this arithmetic.
     /// </summary>
-    private static void ApplyLosslessSegment(Complex[] n, Complex[] d, SweepCache.Grid grid, CableMedium medium, double lengthMeters,
-        int firstBin, int endBin)
+    private static void ApplyLosslessSegment(Complex[] n, Complex[] d, SweepCache.Grid grid, CableMedium medium, double lengthMeters)
     {
         double v = medium.VelocityMetersPerSecond;
         Complex step = Complex.FromPolarCoordinates(1, -grid.DOmega * (2 * lengthMeters / v));
         double z = medium.ImpedanceOhms, y = 1 / z;
         Complex e = Complex.One;
         int previous = -2;
-        // |γl| grows with the bin, so once a bin is past the small-argument bound every later one is too (and a range
-        // that starts past it finds so at its first bin, as a sweep from bin 0 would have).
+        // |γl| grows with the bin, so once a bin is past the small-argument bound every later one is too.
         bool small = true;
-        for (int k = firstBin; k < endBin; k++)
+        for (int k = 0; k < grid.BinCount; k++)
         {
             var s = new Complex(grid.Sigma, k * grid.DOmega);
             if (small)

@@ -219,33 +219,4 @@ public class SweepCacheTests
                 Assert.InRange(cached[i] - plain[i], -SimulationRelativeTolerance, SimulationRelativeTolerance);
         }
     }
-
-    /// <summary>A fit's sweep hands ranges of bins to the cores: each bin's pair must not depend on the range it was
-    /// evaluated in (a lossless segment's phasor recurrence restarts at each range), or results would depend on the
-    /// number of cores. Lossless and lossy runs, ranges of 512 against one sweep of every bin, compared bit for bit.</summary>
-    [Theory]
-    [InlineData(41, true)]
-    [InlineData(42, false)]
-    public void SweepByRangesGivesTheBitsOfOneSweep(int seed, bool lossless)
-    {
-        var networks = new RandomNetworks(seed, lossless);
-        var cache = new SweepCache();
-        const int bins = 1900;
-        var grid = new SweepCache.Grid(4096, 2e6, 2 * Math.PI / 800e-9, bins);
-        for (int n = 0; n < 4; n++)
-        {
-            var compiled = new CompiledNetwork(networks.Network());
-            NetworkEvaluator.PrepareSweep(compiled, cache, grid);
-            (Complex[][] N, Complex[][] D) Stack() =>
-                (Enumerable.Range(0, compiled.MaxStackDepth + 1).Select(_ => new Complex[bins]).ToArray(),
-                 Enumerable.Range(0, compiled.MaxStackDepth + 1).Select(_ => new Complex[bins]).ToArray());
-            var whole = Stack();
-            NetworkEvaluator.EvaluateSweep(compiled, cache, grid, whole.N, whole.D, 0, bins);
-            var ranges = Stack();
-            for (int first = 0; first < bins; first += 512)
-                NetworkEvaluator.EvaluateSweep(compiled, cache, grid, ranges.N, ranges.D, first, Math.Min(bins, first + 512));
-            Assert.Equal(whole.N[0], ranges.N[0]);
-            Assert.Equal(whole.D[0], ranges.D[0]);
-        }
-    }
 }
