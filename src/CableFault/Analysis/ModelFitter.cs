@@ -58,13 +58,14 @@ internal static class ModelFitter
             cachedF = f;
             return f;
         }
-        double[][] ExactJacobianU(double[] u)
+        // reuse: the secant's columns, which a fresh Jacobian replaces, to be overwritten rather than allocated anew.
+        double[][] ExactJacobianU(double[] u, double[][]? reuse = null)
         {
             double[] f0 = Model(u);
             var columns = new double[p][];
             Parallel.For(0, p, new ParallelOptions { CancellationToken = cancellation }, j =>
             {
-                var col = new double[f0.Length];
+                var col = reuse?[j] is { } old && old.Length == f0.Length && free[j] ? old : new double[f0.Length];
                 if (free[j] && IsExactColumn(j, u)) FillExactColumn(j, u, f0, referenceAmplitude, col);
                 else if (free[j])
                 {
@@ -87,12 +88,13 @@ internal static class ModelFitter
                 for (int j = 0; j < p; j++)
                 {
                     if (!free[j] || !IsExactColumn(j, u)) continue;
-                    exact[j] = new double[f0.Length];
+                    // The column it replaces is read by nothing else.
+                    exact[j] = secant.Columns![j] is { } old && old.Length == f0.Length ? old : new double[f0.Length];
                     FillExactColumn(j, u, f0, referenceAmplitude, exact[j]);
                 }
                 secant.Update(u, f0, exact);
             }
-            else secant.Reset(u, f0, ExactJacobianU(u));
+            else secant.Reset(u, f0, ExactJacobianU(u, secant.Columns));
             return secant.Columns!;
         }
 

@@ -74,13 +74,14 @@ internal sealed class SecantJacobian(int parameterCount, bool[] free)
                 var col = next[j];
                 for (int i = 0; i < n; i++) r[i] -= col[i] * du[j];
             }
+            // In place: the old columns are read by nothing once r is known (LM takes its products at once), and a
+            // fresh copy of every column per step made the allocator a large share of a long fit's time.
             for (int j = 0; j < parameterCount; j++)
             {
                 if (!free[j] || exactColumns[j] is not null || du[j] == 0) continue;
-                var col = (double[])old[j].Clone();
+                var col = old[j];
                 double w = du[j] / norm2;
                 for (int i = 0; i < n; i++) col[i] += r[i] * w;
-                next[j] = col;
             }
         }
         pointU = u;
