@@ -18,6 +18,10 @@ internal static class ModelFitter
     /// <summary>Indices of the incident amplitude and the level offset in <see cref="RunModel.ToVector"/>.</summary>
     private const int AmplitudeIndex = 0, OffsetIndex = 3;
 
+    /// <summary>Columns that need a model run, from which recording the base point's network pairs pays: the recording
+    /// costs about one run's network sweep, and each column then evaluates about half of the network.</summary>
+    private const int MinimumColumnsForSnapshots = 3;
+
     /// <summary>Default iteration limit; warm starts converge in a handful.</summary>
     internal const int DefaultMaximumIterations = 40;
 
@@ -63,6 +67,9 @@ internal static class ModelFitter
         {
             double[] f0 = Model(u);
             var columns = new double[p][];
+            // The columns' runs resume from the base point's network pairs: each evaluates only the operations its
+            // parameter changes and those nearer the port (bit for bit what a full run gives).
+            using var snapshots = CountRunColumns(u) >= MinimumColumnsForSnapshots ? initial.FromVector(u).Snapshot(data) : null;
             Parallel.For(0, p, new ParallelOptions { CancellationToken = cancellation }, j =>
             {
                 var col = reuse?[j] is { } old && old.Length == f0.Length && free[j] ? old : new double[f0.Length];
@@ -71,12 +78,19 @@ internal static class ModelFitter
                 {
                     var shifted = (double[])u.Clone();
                     shifted[j] += DifferenceStep;
-                    var fj = initial.FromVector(shifted).Simulate(data);
+                    var fj = initial.FromVector(shifted).Simulate(data, snapshots);
                     for (int i = 0; i < col.Length; i++) col[i] = (fj[i] - f0[i]) / DifferenceStep;
                 }
                 columns[j] = col;
             });
             return columns;
+        }
+        int CountRunColumns(double[] u)
+        {
+            int count = 0;
+            for (int j = 0; j < p; j++)
+                if (free[j] && !IsExactColumn(j, u)) count++;
+            return count;
         }
         double[][] JacobianU(double[] u)
         {

@@ -240,12 +240,29 @@ internal sealed class RunModel
     /// The model's samples at the fit data's sample times. The data were low-passed by a Gaussian of σ_g, which for a
     /// Gaussian edge is the same as an edge of σ = √(σ_r² + σ_g²): the filter is folded into the stimulus exactly.
     /// </summary>
-    internal double[] Simulate(FitData data)
+    /// <param name="data">The samples' times and low-pass.</param>
+    /// <param name="resumeFrom">Pairs recorded at a nearby model (<see cref="Snapshot"/>), or null.</param>
+    internal double[] Simulate(FitData data, SweepSnapshots? resumeFrom = null)
     {
         Interlocked.Increment(ref SimulationCount);
+        var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), Settings(data), data.Cache,
+            ForwardModel.FitMaximumUndamping, resumeFrom);
+        if (OffsetVolts != 0)
+            for (int i = 0; i < samples.Length; i++) samples[i] += OffsetVolts;
+        return samples;
+    }
+
+    /// <summary>The run's impedance pairs after each network operation on the contour <see cref="Simulate"/> uses, so
+    /// that the runs of a Jacobian's columns (each one parameter away) evaluate only the operations they change. The
+    /// caller disposes it.</summary>
+    internal SweepSnapshots Snapshot(FitData data) =>
+        ForwardModel.Snapshot(new CompiledNetwork(ToNetwork()), Settings(data), data.Cache, ForwardModel.FitMaximumUndamping);
+
+    private InstrumentSettings Settings(FitData data)
+    {
         double sigmaRise = RiseSeconds / 2.5631031310892007;
         double sigma = Math.Sqrt(sigmaRise * sigmaRise + data.FilterSigmaSeconds * data.FilterSigmaSeconds);
-        var settings = new InstrumentSettings
+        return new InstrumentSettings
         {
             SourceImpedanceOhms = Context.SourceImpedanceOhms,
             IncidentAmplitudeVolts = AmplitudeVolts == 0 ? 1e-30 : AmplitudeVolts,
@@ -259,10 +276,5 @@ internal sealed class RunModel
             SettlingFraction = Context.SettlingFraction,
             SettlingTimeConstantSeconds = Context.SettlingSeconds,
         };
-        var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings, data.Cache,
-            ForwardModel.FitMaximumUndamping);
-        if (OffsetVolts != 0)
-            for (int i = 0; i < samples.Length; i++) samples[i] += OffsetVolts;
-        return samples;
     }
 }

@@ -104,33 +104,13 @@ public static class ForwardModel
     /// <param name="settings">The instrument and record.</param>
     /// <param name="cache">Per-bin quantities shared by a fit's runs, or null.</param>
     /// <param name="maximumUndamping">Cap on e^(σ·t_rec) (see <see cref="FitMaximumUndamping"/>); none by default.</param>
+    /// <param name="resumeFrom">The same run's pairs at a fit's base point, or null: a run that differs from the base only
+    /// from some operation on starts there (the pairs before it are the base's, bit for bit).</param>
     internal static double[] SimulateSamples(CompiledNetwork network, InstrumentSettings settings, SweepCache? cache,
-        double maximumUndamping = double.PositiveInfinity)
+        double maximumUndamping = double.PositiveInfinity, SweepSnapshots? resumeFrom = null)
     {
-        double rise = settings.RiseTimeSeconds;
-        int oversample = (int)Math.Ceiling(settings.SampleIntervalSeconds / StimulusSpectrum.MaximumInternalIntervalSeconds(settings.EdgeShape, rise) - 1e-9);
-        oversample = Math.Max(1, oversample);
-        double dt = settings.SampleIntervalSeconds / oversample;
-
-        // Put the edge centre far enough after internal t = 0 that its leading tail is negligible.
-        double leadIn = StimulusSpectrum.LeadInSeconds(settings.EdgeShape, rise);
-        int shift = (int)Math.Max(0, Math.Ceiling((leadIn - settings.PreTriggerSeconds) / dt));
-        double edgeCentre = settings.PreTriggerSeconds + shift * dt;
-        long needed = shift + (long)(settings.SampleCount - 1) * oversample + 1;
-        if (!(maximumUndamping > 1)) throw new ArgumentOutOfRangeException(nameof(maximumUndamping), maximumUndamping, "The undamping cap must exceed 1.");
-        // The shortest fast length that holds the record: the cost of a run grows with the transform's bins.
-        long fftLength = needed > 1L << 27 ? needed : InverseFft.FastLength(needed);
-        if (fftLength > (1L << 27))
-            throw new InputException($"simulate settings: the record needs an internal FFT of {fftLength} points, over the {1L << 27} limit; shorten the record (--duration-ns, --samples) or lengthen --rise-time-ns");
-        int m = (int)fftLength;
-        double period = m * dt;
-        // Wrap-around is suppressed by e^(−σT) while rounding errors grow by e^(σ·t) up to the record's end t_rec;
-        // σ = ln(1/ε²)/(T + t_rec) makes both ≤ ε = 1e-8 relative even when T = t_rec, and far smaller when T > t_rec.
-        // A fit caps the growth (see FitMaximumUndamping).
-        double recordSpan = (needed - 1) * dt;
-        double sigma = Math.Min(-2 * Math.Log(BalancedError) / (period + recordSpan), Math.Log(maximumUndamping) / recordSpan);
-        double dOmega = 2 * Math.PI / period;
-
+        var (oversample, dt, shift, edgeCentre, m, sigma, dOmega) = PlanContour(settings, maximumUndamping);
+        double rise = settings.RiseTimeSeconds, period = m * dt;
         double zs = settings.SourceImpedanceOhms, amplitude = settings.IncidentAmplitudeVolts;
         double[] transformed;
         double[]? pooled = null;
@@ -140,7 +120,7 @@ public static class ForwardModel
             var grid = new SweepCache.Grid(m, sigma, dOmega, bins);
             var (edge, delays) = cache.Stimulus(grid, settings.EdgeShape, rise, edgeCentre, settings.SettlingFraction,
                 settings.SettlingTimeConstantSeconds);
-            var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid);
+            var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid, resumeFrom is { } snapshots && snapshots.Grid == grid ? snapshots : null);
             // The spectrum overwrites N bin by bin (each bin reads only its own N and D).
             var ys = ns;
             for (int k = 0; k < bins; k++)
@@ -203,6 +183,50 @@ public static class ForwardModel
             }
         if (pooled is not null) SweepBuffers<double>.Return(pooled);
         return samples;
+    }
+
+    /// <summary>The pairs of <paramref name="network"/> after each of its operations on the contour a cached
+    /// <see cref="SimulateSamples(CompiledNetwork, InstrumentSettings, SweepCache?, double, SweepSnapshots?)"/> with these
+    /// arguments would use: the base point of a fit's Jacobian, from which each column's run resumes. The caller disposes it.</summary>
+    internal static SweepSnapshots Snapshot(CompiledNetwork network, InstrumentSettings settings, SweepCache cache, double maximumUndamping)
+    {
+        var (_, _, _, _, m, sigma, dOmega) = PlanContour(settings, maximumUndamping);
+        var grid = new SweepCache.Grid(m, sigma, dOmega, CountBins(settings.EdgeShape, settings.RiseTimeSeconds, sigma, dOmega, m / 2));
+        var snapshots = new SweepSnapshots(network, grid);
+        var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid, record: snapshots);
+        SweepBuffers<Complex>.Return(ns);
+        SweepBuffers<Complex>.Return(ds);
+        return snapshots;
+    }
+
+    /// <summary>The internal grid and the contour of a simulation: oversampling of the record, internal interval, the
+    /// edge's shift into the transform, its centre, the transform length, the contour's σ and the bin spacing.</summary>
+    private static (int Oversample, double Dt, int Shift, double EdgeCentre, int M, double Sigma, double DOmega) PlanContour(
+        InstrumentSettings settings, double maximumUndamping)
+    {
+        double rise = settings.RiseTimeSeconds;
+        int oversample = (int)Math.Ceiling(settings.SampleIntervalSeconds / StimulusSpectrum.MaximumInternalIntervalSeconds(settings.EdgeShape, rise) - 1e-9);
+        oversample = Math.Max(1, oversample);
+        double dt = settings.SampleIntervalSeconds / oversample;
+
+        // Put the edge centre far enough after internal t = 0 that its leading tail is negligible.
+        double leadIn = StimulusSpectrum.LeadInSeconds(settings.EdgeShape, rise);
+        int shift = (int)Math.Max(0, Math.Ceiling((leadIn - settings.PreTriggerSeconds) / dt));
+        double edgeCentre = settings.PreTriggerSeconds + shift * dt;
+        long needed = shift + (long)(settings.SampleCount - 1) * oversample + 1;
+        if (!(maximumUndamping > 1)) throw new ArgumentOutOfRangeException(nameof(maximumUndamping), maximumUndamping, "The undamping cap must exceed 1.");
+        // The shortest fast length that holds the record: the cost of a run grows with the transform's bins.
+        long fftLength = needed > 1L << 27 ? needed : InverseFft.FastLength(needed);
+        if (fftLength > (1L << 27))
+            throw new InputException($"simulate settings: the record needs an internal FFT of {fftLength} points, over the {1L << 27} limit; shorten the record (--duration-ns, --samples) or lengthen --rise-time-ns");
+        int m = (int)fftLength;
+        double period = m * dt;
+        // Wrap-around is suppressed by e^(−σT) while rounding errors grow by e^(σ·t) up to the record's end t_rec;
+        // σ = ln(1/ε²)/(T + t_rec) makes both ≤ ε = 1e-8 relative even when T = t_rec, and far smaller when T > t_rec.
+        // A fit caps the growth (see FitMaximumUndamping).
+        double recordSpan = (needed - 1) * dt;
+        double sigma = Math.Min(-2 * Math.Log(BalancedError) / (period + recordSpan), Math.Log(maximumUndamping) / recordSpan);
+        return (oversample, dt, shift, edgeCentre, m, sigma, 2 * Math.PI / period);
     }
 
     /// <summary>

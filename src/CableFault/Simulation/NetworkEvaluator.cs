@@ -82,16 +82,27 @@ internal sealed class NetworkEvaluator
     /// </summary>
     /// <returns>Arrays from <see cref="SweepBuffers{T}"/>, at least <see cref="SweepCache.Grid.BinCount"/> long
     /// (entries past it are undefined): the caller returns them.</returns>
-    internal static (Complex[] N, Complex[] D) EvaluateSweep(CompiledNetwork network, SweepCache cache, SweepCache.Grid grid)
+    /// <param name="network">The compiled run.</param>
+    /// <param name="cache">Per-bin tables.</param>
+    /// <param name="grid">The contour.</param>
+    /// <param name="resumeFrom">Pairs recorded on <paramref name="grid"/> for a network that may share this one's first
+    /// operations: those are not evaluated again (see <see cref="SweepSnapshots"/>).</param>
+    /// <param name="record">Receives the top pair after every operation.</param>
+    internal static (Complex[] N, Complex[] D) EvaluateSweep(CompiledNetwork network, SweepCache cache, SweepCache.Grid grid,
+        SweepSnapshots? resumeFrom = null, SweepSnapshots? record = null)
     {
         // Operations outer, bins inner: each operation is one tight loop over the bins (no dispatch per bin).
         int bins = grid.BinCount;
-                var stackN = new Complex[network.MaxStackDepth + 1][];
+        var stackN = new Complex[network.MaxStackDepth + 1][];
         var stackD = new Complex[network.MaxStackDepth + 1][];
         int top = -1;
+        int first = resumeFrom?.FirstDifference(network) ?? 0;
+        if (first > 0) top = resumeFrom!.Restore(first, stackN, stackD);
         Complex S(int k) => new(grid.Sigma, k * grid.DOmega);
-        foreach (var op in network.Ops)
+        var ops = network.Ops;
+        for (int index = first; index < ops.Length; index++)
         {
+            var op = ops[index];
             Complex[] n, d;
             switch (op.Kind)
             {
@@ -165,6 +176,7 @@ internal sealed class NetworkEvaluator
                     }
                     break;
             }
+            record?.Record(index, top, stackN[top], stackD[top]);
         }
         return (stackN[0], stackD[0]);
     }

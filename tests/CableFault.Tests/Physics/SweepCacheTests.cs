@@ -1,4 +1,5 @@
 using System.Numerics;
+using CableFault.Networks;
 using CableFault.Simulation;
 using MathNet.Numerics.IntegralTransforms;
 
@@ -218,5 +219,76 @@ public class SweepCacheTests
             for (int i = 0; i < plain.Length; i++)
                 Assert.InRange(cached[i] - plain[i], -SimulationRelativeTolerance, SimulationRelativeTolerance);
         }
+    }
+
+    /// <summary>A Jacobian column's run resumes from the pairs its base point recorded, evaluating only the operations
+    /// from the first one it changes. Every element of random networks (branches, lossy and lossless media, every lumped
+    /// kind) is changed in turn, and the resumed sweep must give a full sweep's pairs bit for bit; the unchanged network
+    /// resumes at its end and must give them too.</summary>
+    [Theory]
+    [InlineData(51, true)]
+    [InlineData(52, false)]
+    [InlineData(53, false)]
+    public void ResumedSweepGivesTheBitsOfAFullSweep(int seed, bool lossless)
+    {
+        var networks = new RandomNetworks(seed, lossless);
+        var cache = new SweepCache();
+        var grid = new SweepCache.Grid(4096, 2e6, 2 * Math.PI / 800e-9, 1900);
+        int resumedLate = 0;
+        for (int n = 0; n < 4; n++)
+        {
+            var network = networks.Network();
+            var compiled = new CompiledNetwork(network);
+            using var snapshots = new SweepSnapshots(compiled, grid);
+            NetworkEvaluator.EvaluateSweep(compiled, cache, grid, record: snapshots);
+            int elements = CountTunable(network.Run);
+            for (int target = -1; target < elements; target++)
+            {
+                int counter = 0;
+                var changed = target < 0 ? compiled : new CompiledNetwork(network with { Run = Changed(network.Run, target, ref counter) });
+                var full = NetworkEvaluator.EvaluateSweep(changed, cache, grid);
+                var resumed = NetworkEvaluator.EvaluateSweep(changed, cache, grid, resumeFrom: snapshots);
+                Assert.True(full.N.AsSpan(0, grid.BinCount).SequenceEqual(resumed.N.AsSpan(0, grid.BinCount)));
+                Assert.True(full.D.AsSpan(0, grid.BinCount).SequenceEqual(resumed.D.AsSpan(0, grid.BinCount)));
+                if (snapshots.FirstDifference(changed) > 0) resumedLate++;
+            }
+        }
+        // The comparison is only worth something when runs did resume part-way.
+        Assert.True(resumedLate > 4, $"only {resumedLate} runs resumed after their first operation");
+    }
+
+    private static int CountTunable(NetworkBranch branch) => branch.Elements.Sum(e => e switch
+    {
+        Junction j => j.Branches.Sum(CountTunable),
+        CableSegment or ShuntCapacitor or SeriesInductor or ShuntResistor or SeriesResistor => 1,
+        _ => 0,
+    });
+
+    /// <summary>The branch with its <paramref name="target"/>-th tunable element (in element order, depth first) 0.1 %
+    /// larger.</summary>
+    private static NetworkBranch Changed(NetworkBranch branch, int target, ref int counter)
+    {
+        var elements = new List<NetworkElement>();
+        foreach (var e in branch.Elements)
+        {
+            if (e is Junction j)
+            {
+                var branches = new List<NetworkBranch>();
+                foreach (var b in j.Branches) branches.Add(Changed(b, target, ref counter));
+                elements.Add(new Junction(branches));
+                continue;
+            }
+            bool hit = e is CableSegment or ShuntCapacitor or SeriesInductor or ShuntResistor or SeriesResistor && counter++ == target;
+            elements.Add(!hit ? e : e switch
+            {
+                CableSegment s => s with { LengthMeters = s.LengthMeters * 1.001 },
+                ShuntCapacitor c => new ShuntCapacitor(c.CapacitanceFarads * 1.001),
+                SeriesInductor l => new SeriesInductor(l.InductanceHenries * 1.001),
+                ShuntResistor r => new ShuntResistor(r.ResistanceOhms * 1.001),
+                SeriesResistor r => new SeriesResistor(r.ResistanceOhms * 1.001),
+                _ => e,
+            });
+        }
+        return new NetworkBranch(elements);
     }
 }
