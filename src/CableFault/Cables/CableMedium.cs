@@ -70,19 +70,30 @@ public sealed class CableMedium
     internal double SkinCoefficient { get; }
 
     /// <summary>Series impedance per metre Z′(s), Ω/m.</summary>
-    public Complex SeriesImpedanceOhmsPerMeter(Complex s)
+    public Complex SeriesImpedanceOhmsPerMeter(Complex s) => SeriesImpedanceOhmsPerMeter(s, SkinCoefficient > 0 ? Complex.Sqrt(s) : 0);
+
+    /// <summary>Z′(s) given √s (unread when the skin term is zero): the same operations, with the root every medium on a
+    /// frequency grid shares computed once.</summary>
+    internal Complex SeriesImpedanceOhmsPerMeter(Complex s, Complex rootS)
     {
         Complex z = s * InductanceHenriesPerMeter + Loss.DcResistanceOhmsPerMeter;
-        if (SkinCoefficient > 0) z += SkinCoefficient * Complex.Sqrt(s);
+        if (SkinCoefficient > 0) z += SkinCoefficient * rootS;
         return z;
     }
 
+    /// <summary>The dielectric factor (s/(2π·f_ref))^(−n) that multiplies sC in <see cref="ShuntAdmittanceSiemensPerMeter(Complex)"/>
+    /// for exponent n (1 when there is no dielectric loss or s = 0).</summary>
+    internal static Complex DielectricFactor(Complex s, double exponent) =>
+        exponent > 0 && s != Complex.Zero ? Complex.Pow(s / (2 * Math.PI * DielectricReferenceFrequencyHz), -exponent) : Complex.One;
+
     /// <summary>Shunt admittance per metre Y′(s), S/m.</summary>
-    public Complex ShuntAdmittanceSiemensPerMeter(Complex s)
+    public Complex ShuntAdmittanceSiemensPerMeter(Complex s) => ShuntAdmittanceSiemensPerMeter(s, DielectricFactor(s, DielectricExponent));
+
+    /// <summary>Y′(s) given <see cref="DielectricFactor"/> for this medium's exponent (shared by every medium with it).</summary>
+    internal Complex ShuntAdmittanceSiemensPerMeter(Complex s, Complex dielectricFactor)
     {
         Complex y = s * CapacitanceFaradsPerMeter;
-        if (DielectricExponent > 0 && s != Complex.Zero)
-            y *= Complex.Pow(s / (2 * Math.PI * DielectricReferenceFrequencyHz), -DielectricExponent);
+        if (DielectricExponent > 0 && s != Complex.Zero) y *= dielectricFactor;
         return y;
     }
 

@@ -245,10 +245,19 @@ internal sealed class NetworkEvaluator
     /// <summary>γ, Z_c, Z′ and Y′ of a medium at complex frequency s.</summary>
     internal static (Complex Gamma, Complex Zc, Complex ZSeries, Complex YShunt) Propagation(CableMedium medium, Complex s)
     {
+        if (medium.IsLossless) return Propagation(medium, s, 0, 1);
+        return Propagation(medium, s, medium.SkinCoefficient > 0 ? Complex.Sqrt(s) : 0, CableMedium.DielectricFactor(s, medium.DielectricExponent));
+    }
+
+    /// <summary>As <see cref="Propagation(CableMedium, Complex)"/> given √s and the medium's dielectric factor, which
+    /// every medium on a frequency grid shares (see <see cref="SweepCache"/>).</summary>
+    internal static (Complex Gamma, Complex Zc, Complex ZSeries, Complex YShunt) Propagation(CableMedium medium, Complex s,
+        Complex rootS, Complex dielectricFactor)
+    {
         if (medium.IsLossless)
             return (s / medium.VelocityMetersPerSecond, medium.ImpedanceOhms, s * medium.InductanceHenriesPerMeter,
                 s * medium.CapacitanceFaradsPerMeter);
-        Complex z = medium.SeriesImpedanceOhmsPerMeter(s), y = medium.ShuntAdmittanceSiemensPerMeter(s);
+        Complex z = medium.SeriesImpedanceOhmsPerMeter(s, rootS), y = medium.ShuntAdmittanceSiemensPerMeter(s, dielectricFactor);
         Complex gamma = Complex.Sqrt(z * y);
         return (gamma, gamma == Complex.Zero ? medium.ImpedanceOhms : z / gamma, z, y);
     }

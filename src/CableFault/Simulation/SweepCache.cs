@@ -65,6 +65,8 @@ internal sealed class SweepCache
         _edges.Clear();
         _delays.Clear();
         _undamping.Clear();
+        _roots.Clear();
+        _dielectric.Clear();
     }
 
     /// <summary>e^(σt) at each kept sample t = (<paramref name="shift"/> + i·<paramref name="stride"/>)·Δt, computed as
@@ -128,10 +130,14 @@ internal sealed class SweepCache
         if (_media.TryGetValue(key, out var cached)) return cached;
         int count = grid.BinCount;
         var bins = new MediumBins(new Complex[count], new Complex[count], new Complex[count], new Complex[count]);
+        // √s and the dielectric factor are the same for every medium of the grid (with that exponent): a fit's Jacobian
+        // makes a new medium for each impedance it moves, and these complex roots and powers were most of the cost.
+        Complex[]? roots = medium.IsLossless || medium.SkinCoefficient == 0 ? null : RootsOfS(grid);
+        Complex[]? factors = medium.IsLossless || medium.DielectricExponent == 0 ? null : DielectricFactors(grid, medium.DielectricExponent);
         for (int k = 0; k < count; k++)
         {
             var s = new Complex(grid.Sigma, k * grid.DOmega);
-            var (gamma, zc, z, y) = NetworkEvaluator.Propagation(medium, s);
+            var (gamma, zc, z, y) = NetworkEvaluator.Propagation(medium, s, roots?[k] ?? 0, factors?[k] ?? 1);
             bins.Gamma[k] = gamma;
             bins.Zc[k] = zc;
             bins.ZSeries[k] = z;
@@ -139,6 +145,29 @@ internal sealed class SweepCache
         }
         Trim(4L * grid.BinCount);
         return _media.GetOrAdd(key, bins);
+    }
+
+    private readonly ConcurrentDictionary<Grid, Complex[]> _roots = new();
+    private readonly ConcurrentDictionary<(Grid Grid, double Exponent), Complex[]> _dielectric = new();
+
+    /// <summary>√s per bin, as <see cref="CableMedium.SeriesImpedanceOhmsPerMeter(Complex)"/> computes it.</summary>
+    private Complex[] RootsOfS(Grid grid)
+    {
+        if (_roots.TryGetValue(grid, out var cached)) return cached;
+        var roots = new Complex[grid.BinCount];
+        for (int k = 0; k < roots.Length; k++) roots[k] = Complex.Sqrt(new Complex(grid.Sigma, k * grid.DOmega));
+        Trim(grid.BinCount);
+        return _roots.GetOrAdd(grid, roots);
+    }
+
+    /// <summary><see cref="CableMedium.DielectricFactor"/> per bin for one exponent.</summary>
+    private Complex[] DielectricFactors(Grid grid, double exponent)
+    {
+        if (_dielectric.TryGetValue((grid, exponent), out var cached)) return cached;
+        var factors = new Complex[grid.BinCount];
+        for (int k = 0; k < factors.Length; k++) factors[k] = CableMedium.DielectricFactor(new Complex(grid.Sigma, k * grid.DOmega), exponent);
+        Trim(grid.BinCount);
+        return _dielectric.GetOrAdd((grid, exponent), factors);
     }
 
     /// <summary>A lossy segment's ABCD entries per bin, scaled by e^(−γl) (see <see cref="NetworkEvaluator.SegmentMatrix"/>);

@@ -291,4 +291,36 @@ public class SweepCacheTests
         }
         return new NetworkBranch(elements);
     }
+
+    /// <summary>The cache takes √s and the dielectric factor once per grid for all media; each medium's γ, Z_c, Z′ and Y′
+    /// must still be bit for bit what the medium's own formulas give at that bin (skin, DC and dielectric loss, each
+    /// alone and together, and two media sharing one exponent).</summary>
+    [Fact]
+    public void SharedRootsGiveEachMediumsOwnPropagation()
+    {
+        var grid = new SweepCache.Grid(4096, 2e6, 2 * Math.PI / 800e-9, 1900);
+        var cache = new SweepCache();
+        var media = new[]
+        {
+            new CableFault.Cables.CableMedium(50, 0.66, new CableFault.Cables.CableLossModel(2e-6, 0, 0)),
+            new CableFault.Cables.CableMedium(75, 0.82, new CableFault.Cables.CableLossModel(0, 3e-11, 0)),
+            new CableFault.Cables.CableMedium(93, 0.84, new CableFault.Cables.CableLossModel(0, 0, 0.2)),
+            new CableFault.Cables.CableMedium(50, 0.66, new CableFault.Cables.CableLossModel(2e-6, 3e-11, 0.01)),
+            new CableFault.Cables.CableMedium(60, 0.70, new CableFault.Cables.CableLossModel(1e-6, 3e-11, 0.01)),
+        };
+        foreach (var medium in media)
+        {
+            var bins = cache.Medium(grid, medium);
+            for (int k = 0; k < grid.BinCount; k++)
+            {
+                var s = new Complex(grid.Sigma, k * grid.DOmega);
+                Complex z = medium.SeriesImpedanceOhmsPerMeter(s), y = medium.ShuntAdmittanceSiemensPerMeter(s);
+                Complex gamma = Complex.Sqrt(z * y);
+                Assert.Equal(gamma, bins.Gamma[k]);
+                Assert.Equal(gamma == Complex.Zero ? medium.ImpedanceOhms : z / gamma, bins.Zc[k]);
+                Assert.Equal(z, bins.ZSeries[k]);
+                Assert.Equal(y, bins.YShunt[k]);
+            }
+        }
+    }
 }
