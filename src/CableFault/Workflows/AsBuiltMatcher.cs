@@ -33,7 +33,7 @@ public static class AsBuiltMatcher
         ArgumentNullException.ThrowIfNull(result);
         double v = result.Options.VelocityFactor * PhysicalConstants.SpeedOfLightMetersPerSecond;
         double reach = v * (result.AlignedTrace.EndTimeSeconds - (result.Options.TimeZeroOffsetSeconds ?? 0)) / 2;
-        return Match(result.Events, list, reach, result.Options);
+        return Match(result.Events, list, reach);
     }
 
     /// <summary>
@@ -43,10 +43,7 @@ public static class AsBuiltMatcher
     /// <param name="events">Located events.</param>
     /// <param name="list">The as-built list.</param>
     /// <param name="reachMeters">Farthest distance the record covers, m, or null when not known.</param>
-    /// <param name="units">The locate options whose unit (<see cref="LocateOptions.WarningsInFeet"/>) the explanations
-    /// of missing features give distances in; metres when null.</param>
-    public static AsBuiltMatch Match(IReadOnlyList<LocatedEvent> events, AsBuiltList list, double? reachMeters = null,
-        LocateOptions? units = null)
+    public static AsBuiltMatch Match(IReadOnlyList<LocatedEvent> events, AsBuiltList list, double? reachMeters = null)
     {
         ArgumentNullException.ThrowIfNull(events);
         ArgumentNullException.ThrowIfNull(list);
@@ -90,29 +87,26 @@ public static class AsBuiltMatcher
         for (int j = 0; j < entries.Count; j++)
         {
             if (entryTaken[j]) continue;
-            missing.Add(Miss(entries[j], matched, wall, reachMeters, units));
+            missing.Add(Miss(entries[j], matched, wall, reachMeters));
         }
         return new AsBuiltMatch(matched, missing, list);
     }
 
-    private static AsBuiltMissing Miss(AsBuiltEntry entry, IReadOnlyList<AsBuiltEventMatch> matched, LocatedEvent? wall, double? reachMeters,
-        LocateOptions? units)
+    private static AsBuiltMissing Miss(AsBuiltEntry entry, IReadOnlyList<AsBuiltEventMatch> matched, LocatedEvent? wall, double? reachMeters)
     {
         var inv = CultureInfo.InvariantCulture;
-        string Distance(double meters, string format) => units?.WarningDistance(meters, format) ?? meters.ToString(format, inv) + " m";
         string name = entry.Name;
-        string listed = Distance(entry.DistanceMeters, "0.0#");
         var nearby = matched.Where(m => !m.Expected && ReferenceEquals(m.NearbyEntry, entry)).Select(m => m.Event).FirstOrDefault();
         if (nearby is not null)
             return new AsBuiltMissing(entry, AsBuiltMissReason.KindDiffers, string.Create(inv,
-                $"{name} listed at {listed}: an event lies there ({Distance(nearby.DistanceMeters, "0.00")}) but shows as {EventKindNames.ToJsonName(nearby.Kind)}, not as a {entry.Kind.Replace('_', ' ')} normally does"), nearby);
+                $"{name} listed at {entry.DistanceMeters:0.0#} m: an event lies there ({nearby.DistanceMeters:0.00} m) but shows as {EventKindNames.ToJsonName(nearby.Kind)}, not as a {entry.Kind.Replace('_', ' ')} normally does"), nearby);
         if (reachMeters is double reach && entry.DistanceMeters - entry.ToleranceMeters > reach)
             return new AsBuiltMissing(entry, AsBuiltMissReason.BeyondRecord, string.Create(inv,
-                $"{name} listed at {listed} lies beyond the {Distance(reach, "0.0")} the record covers; record a longer trace to see it"), null);
+                $"{name} listed at {entry.DistanceMeters:0.0#} m lies beyond the {reach:0.0} m the record covers; record a longer trace to see it"), null);
         if (wall is not null && entry.DistanceMeters - entry.ToleranceMeters > wall.DistanceMeters + LocatedSigmas * wall.DistanceSigmaMeters)
             return new AsBuiltMissing(entry, AsBuiltMissReason.BeyondFullReflection, string.Create(inv,
-                $"{name} listed at {listed} lies past the {EventKindNames.ToJsonName(wall.Kind)} at {Distance(wall.DistanceMeters, "0.00")}: the run ends early or is broken there"), null);
+                $"{name} listed at {entry.DistanceMeters:0.0#} m lies past the {EventKindNames.ToJsonName(wall.Kind)} at {wall.DistanceMeters:0.00} m: the run ends early or is broken there"), null);
         return new AsBuiltMissing(entry, AsBuiltMissReason.NotSeen, string.Create(inv,
-            $"{name} listed at {listed}: nothing of that kind found within its tolerance; it may have moved, been removed, or be too small to see"), null);
+            $"{name} listed at {entry.DistanceMeters:0.0#} m: nothing of that kind found within its tolerance; it may have moved, been removed, or be too small to see"), null);
     }
 }

@@ -114,30 +114,6 @@ public sealed class AsBuiltMatcherTests(ITestOutputHelper output)
     }
 
     [Fact]
-    public void ExplanationsGiveDistancesInFeetWhenTheLocateAskedForFeet()
-    {
-        // The same short record as above, read with warnings in feet: 27 m = 88.58 ft (1 ft = 0.3048 m exactly, by the
-        // international yard and pound agreement of 1959), and the record's reach in feet too.
-        var shortRecord = InstrumentSettings.DefaultFor(Run, 1e-9) with { SampleCount = 2100, NoiseRmsVolts = 0.5e-3, NoiseSeed = 7 };
-        var result = Locate(Run, shortRecord);
-        var inFeet = result with { Options = result.Options with { WarningsInFeet = true } };
-        var list = new AsBuiltList([Entry("splice", 27, "S3")]);
-
-        var metres = Assert.Single(AsBuiltMatcher.Match(result, list).Missing).Explanation;
-        var feet = Assert.Single(AsBuiltMatcher.Match(inFeet, list).Missing).Explanation;
-        output.WriteLine(metres);
-        output.WriteLine(feet);
-
-        Assert.Contains("listed at 27.0 m", metres);
-        Assert.Contains($"listed at {27 / 0.3048:0.0#} ft", feet);
-        Assert.DoesNotContain(" m ", feet + " ");
-        // The reach: the same distance in both texts, in its own unit, each rounded to 0.1 (0.05 m = 0.16 ft, plus 0.05 ft).
-        double reachMeters = double.Parse(metres.Split("beyond the ")[1].Split(' ')[0], System.Globalization.CultureInfo.InvariantCulture);
-        double reachFeet = double.Parse(feet.Split("beyond the ")[1].Split(' ')[0], System.Globalization.CultureInfo.InvariantCulture);
-        Assert.Equal(reachMeters / 0.3048, reachFeet, 0.22);
-    }
-
-    [Fact]
     public void FeaturesPastAnEarlyBreakAreExplainedByIt()
     {
         // A break (open) at 12 m: the listed S2 and end lie behind it.
