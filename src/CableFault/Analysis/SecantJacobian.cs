@@ -37,7 +37,8 @@ internal sealed class SecantJacobian(int parameterCount, bool[] free)
     /// <summary>The next Jacobian is a finite-difference one.</summary>
     internal void ForceExact() => forceExact = true;
 
-    /// <summary>Starts afresh from a finite-difference Jacobian at <paramref name="u"/>, where the model is <paramref name="f"/>.</summary>
+    /// <summary>Starts afresh from a finite-difference Jacobian at <paramref name="u"/>, where the model is <paramref name="f"/>.
+    /// Takes ownership of <paramref name="columns"/>: later updates change those arrays in place.</summary>
     internal void Reset(double[] u, double[] f, double[][] columns)
     {
         pointU = u;

@@ -96,6 +96,8 @@ internal sealed class NetworkEvaluator
         var stackN = new Complex[network.MaxStackDepth + 1][];
         var stackD = new Complex[network.MaxStackDepth + 1][];
         int top = -1;
+        if (resumeFrom is not null && (record is not null || resumeFrom.Grid != grid))
+            throw new ArgumentException("A sweep resumes only from pairs recorded on its own grid, and does not record while resuming.", nameof(resumeFrom));
         int first = resumeFrom?.FirstDifference(network) ?? 0;
         if (first > 0) top = resumeFrom!.Restore(first, stackN, stackD);
         Complex S(int k) => new(grid.Sigma, k * grid.DOmega);

@@ -224,7 +224,8 @@ public class SweepCacheTests
     /// <summary>A Jacobian column's run resumes from the pairs its base point recorded, evaluating only the operations
     /// from the first one it changes. Every element of random networks (branches, lossy and lossless media, every lumped
     /// kind) is changed in turn, and the resumed sweep must give a full sweep's pairs bit for bit; the unchanged network
-    /// resumes at its end and must give them too.</summary>
+    /// resumes at its end and must give them too. Segments change in length or in medium (impedance), as the fit's
+    /// position and impedance columns do.</summary>
     [Theory]
     [InlineData(51, true)]
     [InlineData(52, false)]
@@ -265,7 +266,7 @@ public class SweepCacheTests
     });
 
     /// <summary>The branch with its <paramref name="target"/>-th tunable element (in element order, depth first) 0.1 %
-    /// larger.</summary>
+    /// larger: a lumped value, a segment's length, or (odd targets) a segment's impedance.</summary>
     private static NetworkBranch Changed(NetworkBranch branch, int target, ref int counter)
     {
         var elements = new List<NetworkElement>();
@@ -281,6 +282,12 @@ public class SweepCacheTests
             bool hit = e is CableSegment or ShuntCapacitor or SeriesInductor or ShuntResistor or SeriesResistor && counter++ == target;
             elements.Add(!hit ? e : e switch
             {
+                // Every other segment gets a new medium (what the fit's impedance and loss columns change) instead of
+                // a new length.
+                CableSegment s when target % 2 == 1 => s with
+                {
+                    Medium = new CableFault.Cables.CableMedium(s.Medium.ImpedanceOhms * 1.001, s.Medium.VelocityFactor, s.Medium.Loss),
+                },
                 CableSegment s => s with { LengthMeters = s.LengthMeters * 1.001 },
                 ShuntCapacitor c => new ShuntCapacitor(c.CapacitanceFarads * 1.001),
                 SeriesInductor l => new SeriesInductor(l.InductanceHenries * 1.001),
@@ -307,6 +314,9 @@ public class SweepCacheTests
             new CableFault.Cables.CableMedium(93, 0.84, new CableFault.Cables.CableLossModel(0, 0, 0.2)),
             new CableFault.Cables.CableMedium(50, 0.66, new CableFault.Cables.CableLossModel(2e-6, 3e-11, 0.01)),
             new CableFault.Cables.CableMedium(60, 0.70, new CableFault.Cables.CableLossModel(1e-6, 3e-11, 0.01)),
+            // The dielectric exponent follows from the VF and the dielectric loss: these two share the fourth's.
+            new CableFault.Cables.CableMedium(75, 0.66, new CableFault.Cables.CableLossModel(1e-6, 3e-11, 0.01)),
+            new CableFault.Cables.CableMedium(62, 0.66, new CableFault.Cables.CableLossModel(0, 3e-11, 0)),
         };
         foreach (var medium in media)
         {
