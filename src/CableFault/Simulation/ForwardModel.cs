@@ -116,8 +116,8 @@ public static class ForwardModel
         double[]? pooled = null;
         if (cache is not null)
         {
-            int bins = CountBins(settings.EdgeShape, rise, sigma, dOmega, m / 2);
-            var grid = new SweepCache.Grid(m, sigma, dOmega, bins);
+            var grid = CachedGrid(settings, m, sigma, dOmega);
+            int bins = grid.BinCount;
             var (edge, delays) = cache.Stimulus(grid, settings.EdgeShape, rise, edgeCentre, settings.SettlingFraction,
                 settings.SettlingTimeConstantSeconds);
             var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid, resumeFrom is { } snapshots && snapshots.Grid == grid ? snapshots : null);
@@ -191,13 +191,18 @@ public static class ForwardModel
     internal static SweepSnapshots Snapshot(CompiledNetwork network, InstrumentSettings settings, SweepCache cache, double maximumUndamping)
     {
         var (_, _, _, _, m, sigma, dOmega) = PlanContour(settings, maximumUndamping);
-        var grid = new SweepCache.Grid(m, sigma, dOmega, CountBins(settings.EdgeShape, settings.RiseTimeSeconds, sigma, dOmega, m / 2));
+        var grid = CachedGrid(settings, m, sigma, dOmega);
         var snapshots = new SweepSnapshots(network, grid);
         var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid, record: snapshots);
         SweepBuffers<Complex>.Return(ns);
         SweepBuffers<Complex>.Return(ds);
         return snapshots;
     }
+
+    /// <summary>The bins a cached run evaluates on its contour: one definition for runs and snapshots, whose grids must
+    /// be equal for a run to resume from a snapshot.</summary>
+    private static SweepCache.Grid CachedGrid(InstrumentSettings settings, int m, double sigma, double dOmega) =>
+        new(m, sigma, dOmega, CountBins(settings.EdgeShape, settings.RiseTimeSeconds, sigma, dOmega, m / 2));
 
     /// <summary>The internal grid and the contour of a simulation: oversampling of the record, internal interval, the
     /// edge's shift into the transform, its centre, the transform length, the contour's σ and the bin spacing.</summary>

@@ -20,6 +20,9 @@ public class SweepCacheTests
     /// e^(σt) ≈ 1e8 late in the record (ForwardModel's balanced error), so 1e-7 of the step is the bound.</summary>
     private const double SimulationRelativeTolerance = 1e-7;
 
+    /// <summary>A contour of 1 900 bins (an 800 ns period, σ = 2·10⁶ s⁻¹) for the per-bin comparisons.</summary>
+    private static readonly SweepCache.Grid SmallGrid = new(4096, 2e6, 2 * Math.PI / 800e-9, 1900);
+
     [Theory]
     [InlineData(2, 2)]
     [InlineData(64, 33)]
@@ -234,7 +237,7 @@ public class SweepCacheTests
     {
         var networks = new RandomNetworks(seed, lossless);
         var cache = new SweepCache();
-        var grid = new SweepCache.Grid(4096, 2e6, 2 * Math.PI / 800e-9, 1900);
+        var grid = SmallGrid;
         int resumedLate = 0;
         for (int n = 0; n < 4; n++)
         {
@@ -305,7 +308,7 @@ public class SweepCacheTests
     [Fact]
     public void SharedRootsGiveEachMediumsOwnPropagation()
     {
-        var grid = new SweepCache.Grid(4096, 2e6, 2 * Math.PI / 800e-9, 1900);
+        var grid = SmallGrid;
         var cache = new SweepCache();
         var media = new[]
         {
