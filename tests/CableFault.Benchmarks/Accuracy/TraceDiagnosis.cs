@@ -49,7 +49,8 @@ public static class TraceDiagnosis
             return 2;
         }
         var loss = cable?.Medium.Loss;
-        var options = new LocateOptions { VelocityFactor = vf, ImpedanceOhms = z0, Loss = loss, SourceImpedanceOhms = source };
+        // As the CLI does: a run whose loss no cable type tells has it estimated from the trace.
+        var options = new LocateOptions { VelocityFactor = vf, ImpedanceOhms = z0, Loss = loss, EstimateLoss = loss is null, SourceImpedanceOhms = source };
         // The detector's candidates, the selection's starting point.
         var characteristics = TraceConditioner.Characterise(trace);
         var aligned = TraceConditioner.Align(trace, characteristics);

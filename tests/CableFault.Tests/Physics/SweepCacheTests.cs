@@ -200,6 +200,42 @@ public class SweepCacheTests
         }
     }
 
+    /// <summary>
+    /// A lossy segment in the sweep (e^(−2γl) from the vectorised exponential, sine and cosine, applied as two travelling
+    /// waves) against the closed form of a line's input impedance, Z_in = Z_c (Z_L + Z_c tanh γl)/(Z_c + Z_L tanh γl)
+    /// (Pozar, <i>Microwave Engineering</i>, 4th ed., eq. 2.44), bin by bin, as the reflection coefficient against 50 Ω
+    /// (bounded where Z_in is not). The segments cover a bin 0 small enough for the series (5 mm), an ordinary run, and a
+    /// long lossy one whose e^(−2γl) underflows at the top bins; the loads cover open, short and resistive ends.
+    /// </summary>
+    /// <remarks>The phase 2βl reaches about 10⁵ rad on the long segment, where the rounding of the argument alone is
+    /// ~10⁻¹¹ rad; 1e-9 leaves a margin over that and still catches a wrong sign, factor or bin.</remarks>
+    [Theory]
+    [InlineData(0.005, 1e-5, 0.0)]
+    [InlineData(37.0, 3e-6, 0.02)]
+    [InlineData(3000.0, 1e-5, 0.1)]
+    public void LossySegmentGivesTheClosedFormInputImpedance(double lengthMeters, double skinNepersPerMeterPerRootHertz, double dcOhmsPerMeter)
+    {
+        var medium = new Cables.CableMedium(62, 0.71, new Cables.CableLossModel(skinNepersPerMeterPerRootHertz, 2e-11, dcOhmsPerMeter));
+        var cache = new SweepCache();
+        foreach (var (end, loadOhms) in new[] { (RunEnd.Open, double.PositiveInfinity), (RunEnd.Short, 0.0), (RunEnd.Resistor(17), 17.0) })
+        {
+            var compiled = new CompiledNetwork(new CableNetwork(new NetworkBranch([new CableSegment(lengthMeters, medium), end])));
+            var (n, d) = NetworkEvaluator.EvaluateSweep(compiled, cache, SmallGrid);
+            for (int k = 0; k < SmallGrid.BinCount; k++)
+            {
+                var s = new Complex(SmallGrid.Sigma, k * SmallGrid.DOmega);
+                var (gamma, zc, _, _) = NetworkEvaluator.Propagation(medium, s);
+                // tanh x = (1 − e^(−2x))/(1 + e^(−2x)), which stays finite for a large Re x.
+                Complex e = Complex.Exp(-2 * gamma * lengthMeters), tanh = (1 - e) / (1 + e);
+                Complex zIn = double.IsPositiveInfinity(loadOhms) ? zc / tanh : zc * (loadOhms + zc * tanh) / (zc + loadOhms * tanh);
+                Complex expected = (zIn - 50) / (zIn + 50), swept = (n[k] - 50 * d[k]) / (n[k] + 50 * d[k]);
+                Assert.True((swept - expected).Magnitude < 1e-9, $"{end.Kind} after {lengthMeters} m, bin {k}: {swept} against {expected}");
+            }
+            SweepBuffers<Complex>.Return(n);
+            SweepBuffers<Complex>.Return(d);
+        }
+    }
+
     /// <summary>A fit's Jacobian changes the edge's rise and its time one at a time: the cache keeps the edge's spectrum,
     /// its delay and the damping's undoing apart, and a run that shares some of them with an earlier one must still get
     /// the samples of the plain path.</summary>
