@@ -134,20 +134,37 @@ internal sealed class SweepCache
         if (_media.TryGetValue(key, out var cached)) return cached;
         int count = grid.BinCount;
         var bins = new MediumBins(new Complex[count], new Complex[count], new Complex[count], new Complex[count], new Complex[count]);
-        // √s and the dielectric factor are the same for every medium of the grid (with that exponent): a fit's Jacobian
-        // makes a new medium for each impedance it moves, and these complex roots and powers were most of the cost.
-        Complex[]? roots = medium.IsLossless || medium.SkinCoefficient == 0 ? null : RootsOfS(grid);
-        Complex[]? factors = medium.IsLossless || medium.DielectricExponent == 0 ? null : DielectricFactors(grid, medium.DielectricExponent);
-        for (int k = 0; k < count; k++)
+        if (medium.IsLossless)
         {
-            var s = new Complex(grid.Sigma, k * grid.DOmega);
-            var (gamma, zc, z, y) = NetworkEvaluator.Propagation(medium, s, roots?[k] ?? 0, factors?[k] ?? 1);
-            bins.Gamma[k] = gamma;
-            bins.Zc[k] = zc;
-            bins.ZSeries[k] = z;
-            bins.YShunt[k] = y;
-            // Once per medium: every segment of it multiplies by 1/Z_c rather than dividing by Z_c.
-            bins.InverseZc[k] = Complex.Reciprocal(zc);
+            for (int k = 0; k < count; k++)
+            {
+                var s = new Complex(grid.Sigma, k * grid.DOmega);
+                var (gamma, zc, z, y) = NetworkEvaluator.Propagation(medium, s);
+                (bins.Gamma[k], bins.Zc[k], bins.ZSeries[k], bins.YShunt[k]) = (gamma, zc, z, y);
+                bins.InverseZc[k] = 1 / medium.ImpedanceOhms;
+            }
+        }
+        else
+        {
+            // √s and the dielectric factor are the same for every medium of the grid (with that exponent): a fit's Jacobian
+            // makes a new medium for each impedance it moves, and these complex roots and powers were most of the cost.
+            Complex[]? roots = medium.SkinCoefficient == 0 ? null : RootsOfS(grid);
+            Complex[]? factors = medium.DielectricExponent == 0 ? null : DielectricFactors(grid, medium.DielectricExponent);
+            double[] zr = SweepBuffers<double>.Rent(count), zi = SweepBuffers<double>.Rent(count);
+            double[] yr = SweepBuffers<double>.Rent(count), yi = SweepBuffers<double>.Rent(count);
+            for (int k = 0; k < count; k++)
+            {
+                var s = new Complex(grid.Sigma, k * grid.DOmega);
+                Complex z = medium.SeriesImpedanceOhmsPerMeter(s, roots?[k] ?? 0), y = medium.ShuntAdmittanceSiemensPerMeter(s, factors?[k] ?? 1);
+                (bins.ZSeries[k], bins.YShunt[k]) = (z, y);
+                (zr[k], zi[k], yr[k], yi[k]) = (z.Real, z.Imaginary, y.Real, y.Imaginary);
+            }
+            LossyPropagation.Compute(zr.AsSpan(0, count), zi.AsSpan(0, count), yr.AsSpan(0, count), yi.AsSpan(0, count),
+                medium.ImpedanceOhms, bins.Gamma, bins.Zc, bins.InverseZc);
+            SweepBuffers<double>.Return(zr);
+            SweepBuffers<double>.Return(zi);
+            SweepBuffers<double>.Return(yr);
+            SweepBuffers<double>.Return(yi);
         }
         Trim(5L * grid.BinCount);
         return _media.GetOrAdd(key, bins);

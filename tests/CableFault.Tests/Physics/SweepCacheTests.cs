@@ -338,13 +338,21 @@ public class SweepCacheTests
         return new NetworkBranch(elements);
     }
 
-    /// <summary>The cache takes √s and the dielectric factor once per grid for all media; each medium's γ, Z_c, Z′ and Y′
-    /// must still be bit for bit what the medium's own formulas give at that bin (skin, DC and dielectric loss, each
-    /// alone and together, and two media sharing one exponent).</summary>
+    /// <summary>The cache takes √s and the dielectric factor once per grid for all media, and γ, Z_c and 1/Z_c of lossy
+    /// media several bins per vector (LossyPropagation). Each medium's Z′ and Y′ must still be bit for bit what its own
+    /// formulas give at that bin, and γ and Z_c what the library's complex square root and division give, within a few
+    /// ulp (1e-14 relative: the root's own rounding is a few 1e-16); 1/Z_c times Z_c must be 1. The media have skin, DC and
+    /// dielectric loss, each alone and together, and two share one exponent. A second grid has a bin count no vector width
+    /// divides (the bins after the last whole vector) and σ = 0, where bin 0 has Z′Y′ = 0 (γ = 0, Z_c = Z₀).</summary>
     [Fact]
     public void SharedRootsGiveEachMediumsOwnPropagation()
     {
-        var grid = SmallGrid;
+        foreach (var grid in new[] { SmallGrid, new SweepCache.Grid(4096, 0, SmallGrid.DOmega, 1901) })
+            CheckMediaOn(grid);
+    }
+
+    private static void CheckMediaOn(SweepCache.Grid grid)
+    {
         var cache = new SweepCache();
         var media = new[]
         {
@@ -364,9 +372,10 @@ public class SweepCacheTests
             {
                 var s = new Complex(grid.Sigma, k * grid.DOmega);
                 Complex z = medium.SeriesImpedanceOhmsPerMeter(s), y = medium.ShuntAdmittanceSiemensPerMeter(s);
-                Complex gamma = Complex.Sqrt(z * y);
-                Assert.Equal(gamma, bins.Gamma[k]);
-                Assert.Equal(gamma == Complex.Zero ? medium.ImpedanceOhms : z / gamma, bins.Zc[k]);
+                Complex gamma = Complex.Sqrt(z * y), zc = gamma == Complex.Zero ? medium.ImpedanceOhms : z / gamma;
+                Assert.True((bins.Gamma[k] - gamma).Magnitude <= 1e-14 * gamma.Magnitude, $"γ at bin {k}: {bins.Gamma[k]} against {gamma}");
+                Assert.True((bins.Zc[k] - zc).Magnitude <= 1e-14 * zc.Magnitude, $"Z_c at bin {k}: {bins.Zc[k]} against {zc}");
+                Assert.True((bins.Zc[k] * bins.InverseZc[k] - 1).Magnitude <= 1e-14, $"Z_c/Z_c at bin {k}");
                 Assert.Equal(z, bins.ZSeries[k]);
                 Assert.Equal(y, bins.YShunt[k]);
             }
