@@ -182,6 +182,39 @@ public class TraceCsvReaderTests
         }
     }
 
+    /// <summary>
+    /// A long file whose rows take every way through the reader: plain rows, quoted ones, padded ones, a trailing
+    /// delimiter, and CRLF breaks, one of them split across the reader's 16 384-character block (its CR the block's last
+    /// character). Each sample must be the number its row states, whichever way the row was read.
+    /// </summary>
+    [Fact]
+    public void Rows_of_every_shape_read_as_the_numbers_they_state_across_block_boundaries()
+    {
+        var text = new StringBuilder("time_ns,volts\r\n");
+        var expected = new List<double>();
+        for (int i = 0; text.Length < 40_000; i++)
+        {
+            double volts = Math.Round(Math.Sin(i * 0.37), 6);
+            string row = (i % 5) switch
+            {
+                0 => $"\"{i}\",\"{volts:R}\"",
+                1 => $"  {i} ,\t{volts:R}  ",
+                2 => $"{i},{volts:R},",
+                _ => $"{i},{volts:R}",
+            };
+            // Pad one row so that its CR is the last character of the first block.
+            if (text.Length < 16_384 && text.Length + row.Length + 40 > 16_384)
+                row = row.PadRight(16_383 - text.Length);
+            text.Append(row).Append("\r\n");
+            expected.Add(volts);
+        }
+        Assert.Equal('\r', text[16_383]);
+        var r = ReadText(text.ToString());
+        Assert.Empty(r.Warnings);
+        AssertSamples(expected.ToArray(), r.Trace);
+        AssertClose(1e-9, r.Trace.SampleIntervalSeconds);
+    }
+
     [Fact]
     public void Truncated_last_line_is_dropped_with_a_warning()
     {

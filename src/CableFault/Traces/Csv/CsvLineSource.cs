@@ -49,23 +49,28 @@ internal sealed class CsvLineSource
                 break;
             }
 
-            char c = _buffer[_bufferPosition++];
             if (_pendingCarriageReturn)
             {
                 _pendingCarriageReturn = false;
-                if (c == '\n') continue; // second half of CRLF
+                if (_buffer[_bufferPosition] == '\n')
+                {
+                    _bufferPosition++; // second half of CRLF
+                    continue;
+                }
             }
             sawAnything = true;
-            if (c == '\n') break;
-            if (c == '\r')
-            {
-                _pendingCarriageReturn = true;
-                break;
-            }
-            if (_line.Length >= _maxLineChars)
+            // The rest of the line within the buffer at once (a character at a time was a tenth of a locate's start).
+            var rest = _buffer.AsSpan(_bufferPosition, _bufferLength - _bufferPosition);
+            int end = rest.IndexOfAny('\r', '\n');
+            int take = end < 0 ? rest.Length : end;
+            if (_line.Length + take > _maxLineChars)
                 throw new InputException(
                     $"{_sourceName}: line {LineNumber + 1}: longer than {_maxLineChars} characters; this does not look like a trace CSV (two columns per line), check the file.");
-            _line.Append(c);
+            _line.Append(rest[..take]);
+            _bufferPosition += take;
+            if (end < 0) continue;
+            if (_buffer[_bufferPosition++] == '\r') _pendingCarriageReturn = true;
+            break;
         }
 
         LineNumber++;

@@ -149,6 +149,7 @@ internal sealed class TraceCsvParser
 
     private void ReadDataLine(string line, int ln)
     {
+        if (_truncatedLine == 0 && TryReadPlainDataLine(line, ln)) return;
         if (_truncatedLine != 0)
             throw new InputException(
                 $"{_source}: line {_truncatedLine}: only {_truncatedFieldCount} of {_expectedFields} columns, and more data follows; fix or delete that line.");
@@ -170,8 +171,42 @@ internal sealed class TraceCsvParser
             return;
         }
 
-        double t = Parse(fields[_timeIndex], _timeColumn, ln);
-        double v = Parse(fields[_signalIndex], _signalColumn, ln);
+        Accept(Parse(fields[_timeIndex], _timeColumn, ln), Parse(fields[_signalIndex], _signalColumn, ln), ln);
+    }
+
+    /// <summary>
+    /// The usual data row read without splitting it into strings: unquoted fields of plain numbers, as many as the row
+    /// must have. Anything else (quotes, a decimal comma, a word, a missing or extra field) returns false and the row is
+    /// read field by field, which reports what is wrong. A row this accepts, that reading would take the same way.
+    /// </summary>
+    private bool TryReadPlainDataLine(string line, int ln)
+    {
+        if (line.Contains('"')) return false;
+        ReadOnlySpan<char> rest = line, time = default, signal = default;
+        int count = 0, nonEmpty = 0;
+        while (true)
+        {
+            int next = rest.IndexOf(_format!.Delimiter);
+            var field = (next < 0 ? rest : rest[..next]).Trim();
+            if (count == _timeIndex) time = field;
+            if (count == _signalIndex) signal = field;
+            count++;
+            // Empty fields at the end of a row are dropped (exporters that end each row with a delimiter).
+            if (!field.IsEmpty) nonEmpty = count;
+            if (next < 0) break;
+            rest = rest[(next + 1)..];
+        }
+        if (nonEmpty > _expectedFields || nonEmpty < _requiredFields || nonEmpty <= Math.Max(_timeIndex, _signalIndex)) return false;
+        if (!_format.TryParsePlain(time, out double t) || !_format.TryParsePlain(signal, out double v)) return false;
+        double tScaled = t / _timeColumn.Divisor, vScaled = v / _signalColumn.Divisor;
+        if (!double.IsFinite(tScaled) || !double.IsFinite(vScaled)) return false;
+        Accept(tScaled, vScaled, ln);
+        return true;
+    }
+
+    /// <summary>Checks a row's time and value (range, order, sample limit) and keeps them.</summary>
+    private void Accept(double t, double v, int ln)
+    {
         if (Math.Abs(t) > TraceCsvReader.MaxAbsTimeSeconds)
             throw new InputException(
                 $"{_source}: line {ln}: time {t:G6} s is beyond ±{TraceCsvReader.MaxAbsTimeSeconds} s, far longer than any reflectometer record; check the time unit in the header (e.g. time_ns).");
