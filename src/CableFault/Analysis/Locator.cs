@@ -105,9 +105,18 @@ public static class Locator
         options.Progress?.Report(0.4);
 
         CableLossModel? estimatedLoss = null;
+        ModelSelection.Result? selectedAhead = null;
         if (estimateLoss)
         {
-            estimatedLoss = LossEstimation.Estimate(initial, data, options.CancellationToken);
+            // Most runs read as lossless, and then the selection starts from the detector's events as they are: it runs
+            // beside the probe, on the cores the probe's fits leave idle, and is kept when the probe finds no loss (with
+            // a settling probe to follow, its start is not yet known).
+            var lossless = initial;
+            if (options.EstimateSettling)
+                estimatedLoss = LossEstimation.Estimate(initial, data, options.CancellationToken);
+            else
+                (estimatedLoss, selectedAhead, _) = Speculation.Run(() => LossEstimation.Estimate(lossless, data, options.CancellationToken),
+                    token => ModelSelection.Select(lossless, data, riseEffective, token), loss => loss is null, options.CancellationToken);
             // A lossy run keeps its loss as two parameters of the model: every full refit in the selection (the first,
             // after a removal, the polish) estimates it again with the events as they then are.
             context = context with { Loss = estimatedLoss, EstimateLoss = estimatedLoss is not null };
@@ -123,7 +132,7 @@ public static class Locator
         else if (options.EstimateSettling)
             warnings.Add("the instrument's step was read as settling at once: the trace shows no slow settling the fit can tell.");
         ModelSelection.DebugTrace?.Invoke($"stage: selection on {data.Samples.Length} samples");
-        var selection = ModelSelection.Select(initial, data, riseEffective, options.CancellationToken);
+        var selection = selectedAhead ?? ModelSelection.Select(initial, data, riseEffective, options.CancellationToken);
         if (data.FilterSigmaSeconds > 0)
         {
             // The selection ran on strongly smoothed data: look again, far less smoothed (see ResolutionRefinement).

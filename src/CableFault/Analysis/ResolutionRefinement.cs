@@ -77,6 +77,7 @@ internal static class ResolutionRefinement
                 var free = FreeAround(candidate, i - 1, i + 2);
                 var fit = ModelFitter.Fit(candidate, fine, variance, free, Iterations, cancellation);
                 trials++;
+                ModelSelection.DebugTrace?.Invoke($"refinement: section at event {i}: bic {Bic(fit):0.0} against {bestBic:0.0}");
                 // A section shorter than the sharper rise is still a lumped spot to these data (see MinimumSectionRiseTimes).
                 double length = fit.Model.Events[i + 1].RoundTripSeconds - fit.Model.Events[i].RoundTripSeconds;
                 if (length < MinimumSectionRiseTimes * fineRiseSeconds) continue;
@@ -90,6 +91,7 @@ internal static class ResolutionRefinement
             {
                 var fit = ModelFitter.Fit(tap, fine, variance, FreeAround(tap, i - 1, i + 1), Iterations, cancellation);
                 trials++;
+                ModelSelection.DebugTrace?.Invoke($"refinement: tap at event {i}: bic {Bic(fit):0.0} against {bestBic:0.0}");
                 double bic = Bic(fit);
                 if (bic < bestBic - ModelSelection.EvidenceMargin && (winner is null || bic < winner.Bic))
                 {
@@ -113,6 +115,7 @@ internal static class ResolutionRefinement
             {
                 var fit = ModelFitter.Fit(candidate, fine, variance, FreeAround(candidate, k - 1, k + 1), Iterations, cancellation);
                 trials++;
+                ModelSelection.DebugTrace?.Invoke($"refinement: spot at event {k}: bic {Bic(fit):0.0} against {bestBic:0.0}");
                 double bic = Bic(fit);
                 if (bic >= bestBic + ModelSelection.EvidenceMargin) continue;
                 (best, bestBic) = (fit, bic);
@@ -137,6 +140,7 @@ internal static class ResolutionRefinement
             {
                 var fit = ModelFitter.Fit(candidate, fine, variance, FreeAround(candidate, k - 1, k + 1), Iterations, cancellation);
                 trials++;
+                ModelSelection.DebugTrace?.Invoke($"refinement: spot at event {k}: bic {Bic(fit):0.0} against {bestBic:0.0}");
                 // The hypothesis is a spot at the step, to within the resolution: one the fit moved further away is
                 // soaking up misfit elsewhere (a lossy stretch's slope).
                 var after = fit.Model.Events;

@@ -1,0 +1,95 @@
+using CableFault.Analysis;
+
+namespace CableFault.Tests.Analysis.Fitting;
+
+/// <summary>
+/// The loss probe runs with the selection started ahead of its outcome (Speculation): the ahead step's result must be
+/// taken only when the first step's outcome keeps it, a discarded ahead step must have stopped before the call returns
+/// (no work of an abandoned reading may outlive the locate), and failures must come out as they were thrown.
+/// </summary>
+public class SpeculationTests
+{
+    [Fact]
+    public void TheAheadResultIsTakenWhenTheFirstStepKeepsIt()
+    {
+        var (first, ahead, kept) = Speculation.Run(() => 1, _ => "ahead", value => value == 1, CancellationToken.None);
+        Assert.Equal(1, first);
+        Assert.True(kept);
+        Assert.Equal("ahead", ahead);
+    }
+
+    [Fact]
+    public void ADiscardedAheadStepIsCancelledAndHasStoppedWhenTheCallReturns()
+    {
+        int stopped = 0;
+        var (first, ahead, kept) = Speculation.Run(() => 2, token =>
+        {
+            try
+            {
+                // Runs until cancelled: only the discard can end it.
+                while (true)
+                {
+                    token.ThrowIfCancellationRequested();
+                    Thread.Sleep(1);
+                }
+            }
+            finally
+            {
+                Thread.Sleep(50);
+                Volatile.Write(ref stopped, 1);
+            }
+#pragma warning disable CS0162 // the loop ends only by the cancellation's exception
+            return "never";
+#pragma warning restore CS0162
+        }, value => value == 1, CancellationToken.None);
+        Assert.Equal(2, first);
+        Assert.False(kept);
+        Assert.Null(ahead);
+        Assert.Equal(1, Volatile.Read(ref stopped));
+    }
+
+    [Fact]
+    public void AFailureOfTheFirstStepIsRethrownAfterTheAheadStepStopped()
+    {
+        int stopped = 0;
+        var error = Assert.Throws<InvalidOperationException>(() => Speculation.Run<int, int>(() => throw new InvalidOperationException("probe"), token =>
+        {
+            try
+            {
+                token.WaitHandle.WaitOne();
+                token.ThrowIfCancellationRequested();
+                return 0;
+            }
+            finally
+            {
+                Volatile.Write(ref stopped, 1);
+            }
+        }, _ => true, CancellationToken.None));
+        Assert.Equal("probe", error.Message);
+        Assert.Equal(1, Volatile.Read(ref stopped));
+    }
+
+    [Fact]
+    public void AKeptAheadStepsFailureIsRethrownAsThrown()
+    {
+        var error = Assert.Throws<ArgumentException>(() =>
+            Speculation.Run<int, int>(() => 1, _ => throw new ArgumentException("selection"), _ => true, CancellationToken.None));
+        Assert.Equal("selection", error.Message);
+    }
+
+    [Fact]
+    public void TheCallersCancellationReachesTheAheadStep()
+    {
+        using var caller = new CancellationTokenSource();
+        Assert.Throws<OperationCanceledException>(() => Speculation.Run(() =>
+        {
+            caller.Cancel();
+            return 1;
+        }, token =>
+        {
+            token.WaitHandle.WaitOne();
+            token.ThrowIfCancellationRequested();
+            return 0;
+        }, _ => true, caller.Token));
+    }
+}
