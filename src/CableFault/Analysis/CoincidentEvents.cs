@@ -40,6 +40,7 @@ internal static class CoincidentEvents
             if (pair < 0) break;
             ModelFit? winner = null;
             double winnerBic = double.PositiveInfinity;
+            var candidates = new List<RunModel>();
             foreach (int drop in new[] { pair, pair + 1 })
             {
                 var list = m.Events.ToList();
@@ -47,8 +48,14 @@ internal static class CoincidentEvents
                 if (drop == pair && list[pair + 1].Element != RunModelElement.Boundary && list[pair].Element == RunModelElement.Boundary)
                     continue;
                 list.RemoveAt(drop);
-                var candidate = m.WithEvents(list);
-                var fit = ModelFitter.Fit(candidate, data, variance, candidate.FreeMask(pair - 1, int.MaxValue, withLoss: false), TrialIterations, cancellation);
+                candidates.Add(m.WithEvents(list));
+            }
+            // The two readings are independent: fitted side by side.
+            var fits = new ModelFit[candidates.Count];
+            ModelSelection.ForEachInParallel(candidates.Count, c => fits[c] = ModelFitter.Fit(candidates[c], data, variance,
+                candidates[c].FreeMask(pair - 1, int.MaxValue, withLoss: false), TrialIterations, cancellation), cancellation);
+            foreach (var fit in fits)
+            {
                 trials++;
                 double bic = Bic(fit);
                 if (bic < winnerBic) { winner = fit; winnerBic = bic; }

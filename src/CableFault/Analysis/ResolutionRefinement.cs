@@ -70,12 +70,16 @@ internal static class ResolutionRefinement
             RunModelFit? winner = null;
             // Two starting lengths beyond the row's span: one sharp rise time (a section the sharper data resolve) and
             // half the coarse rise (the longest a section could be and still have looked lumped).
-            foreach (double tau in new[] { span + fineRiseSeconds, span + coarseRiseSeconds / 2 }.Distinct())
+            var sections = new[] { span + fineRiseSeconds, span + coarseRiseSeconds / 2 }.Distinct()
+                .Select(tau => ReactiveSections.Replace(m, i, last, tau)).OfType<RunModel>().ToList();
+            // A capacitive spot may also be a tap whose branch the coarse look could not resolve; a change of kind with
+            // as many parameters must win by the margin.
+            var tap = last == i ? ReactiveSections.AsTap(m, i, fineRiseSeconds) : null;
+            var fits = FitSideBySide(sections.Select(c => (c, FreeAround(c, i - 1, i + 2)))
+                .Concat(tap is null ? [] : [(tap, FreeAround(tap, i - 1, i + 1))]).ToList(), fine, variance, cancellation);
+            for (int c = 0; c < sections.Count; c++)
             {
-                var candidate = ReactiveSections.Replace(m, i, last, tau);
-                if (candidate is null) continue;
-                var free = FreeAround(candidate, i - 1, i + 2);
-                var fit = ModelFitter.Fit(candidate, fine, variance, free, Iterations, cancellation);
+                var fit = fits[c];
                 trials++;
                 ModelSelection.DebugTrace?.Invoke($"refinement: section at event {i}: bic {Bic(fit):0.0} against {bestBic:0.0}");
                 // A section shorter than the sharper rise is still a lumped spot to these data (see MinimumSectionRiseTimes).
@@ -84,12 +88,10 @@ internal static class ResolutionRefinement
                 double bic = Bic(fit);
                 if (bic < bestBic - margin && (winner is null || bic < winner.Bic)) winner = new RunModelFit(fit, bic);
             }
-            // A capacitive spot may also be a tap whose branch the coarse look could not resolve; a change of kind with
-            // as many parameters must win by the margin.
             bool tapWon = false;
-            if (last == i && ReactiveSections.AsTap(m, i, fineRiseSeconds) is RunModel tap)
+            if (tap is not null)
             {
-                var fit = ModelFitter.Fit(tap, fine, variance, FreeAround(tap, i - 1, i + 1), Iterations, cancellation);
+                var fit = fits[^1];
                 trials++;
                 ModelSelection.DebugTrace?.Invoke($"refinement: tap at event {i}: bic {Bic(fit):0.0} against {bestBic:0.0}");
                 double bic = Bic(fit);
@@ -111,11 +113,13 @@ internal static class ResolutionRefinement
             var m = best.Model;
             if (m.Events[k].Element != RunModelElement.Boundary
                 || Math.Abs(ModelSelection.LocalReflection(m, k)) < EventClassifier.EndReflection) continue;
-            foreach (var candidate in ReactiveSections.SpotCandidates(m, k, fineRiseSeconds))
+            // All fitted side by side; the first in order that does not lose is taken, as if they had been tried in turn.
+            var spots = ReactiveSections.SpotCandidates(m, k, fineRiseSeconds).ToList();
+            var fits = FitSideBySide(spots.Select(c => (c, FreeAround(c, k - 1, k + 1))).ToList(), fine, variance, cancellation);
+            foreach (var fit in fits)
             {
-                var fit = ModelFitter.Fit(candidate, fine, variance, FreeAround(candidate, k - 1, k + 1), Iterations, cancellation);
                 trials++;
-                ModelSelection.DebugTrace?.Invoke($"refinement: spot at event {k}: bic {Bic(fit):0.0} against {bestBic:0.0}");
+                ModelSelection.DebugTrace?.Invoke($"refinement: spot for a boundary pair at event {k}: bic {Bic(fit):0.0} against {bestBic:0.0}");
                 double bic = Bic(fit);
                 if (bic >= bestBic + ModelSelection.EvidenceMargin) continue;
                 (best, bestBic) = (fit, bic);
@@ -136,11 +140,11 @@ internal static class ResolutionRefinement
             double excess = ModelSelection.LocalExcess(best, fine, variance, m.TimeOffsetSeconds + m.Events[k].RoundTripSeconds, fineRiseSeconds);
             if (excess < 2 * logN + ModelSelection.EvidenceMargin) continue;
             RunModelFit? winner = null;
-            foreach (var candidate in SpotsAtBoundary(m, k, fineRiseSeconds))
+            var spots = SpotsAtBoundary(m, k, fineRiseSeconds).ToList();
+            foreach (var fit in FitSideBySide(spots.Select(c => (c, FreeAround(c, k - 1, k + 1))).ToList(), fine, variance, cancellation))
             {
-                var fit = ModelFitter.Fit(candidate, fine, variance, FreeAround(candidate, k - 1, k + 1), Iterations, cancellation);
                 trials++;
-                ModelSelection.DebugTrace?.Invoke($"refinement: spot at event {k}: bic {Bic(fit):0.0} against {bestBic:0.0}");
+                ModelSelection.DebugTrace?.Invoke($"refinement: spot at boundary {k}: bic {Bic(fit):0.0} against {bestBic:0.0}");
                 // The hypothesis is a spot at the step, to within the resolution: one the fit moved further away is
                 // soaking up misfit elsewhere (a lossy stretch's slope).
                 var after = fit.Model.Events;
@@ -178,6 +182,17 @@ internal static class ResolutionRefinement
     }
 
     private sealed record RunModelFit(ModelFit Fit, double Bic);
+
+    /// <summary>The trial fits of <paramref name="trials"/> (each with its free parameters), side by side: they are
+    /// independent, and one alone leaves a core idle for much of its time.</summary>
+    private static ModelFit[] FitSideBySide(IReadOnlyList<(RunModel Model, bool[] Free)> trials, FitData fine, double variance,
+        CancellationToken cancellation)
+    {
+        var fits = new ModelFit[trials.Count];
+        ModelSelection.ForEachInParallel(trials.Count, k => fits[k] = ModelFitter.Fit(trials[k].Model, fine, variance, trials[k].Free,
+            Iterations, cancellation), cancellation);
+        return fits;
+    }
 
     /// <summary>Starting size of a spot added at a boundary: a time constant of this many sharper rise times (small, so the
     /// start is the model without it, and the fit grows it).</summary>
