@@ -195,10 +195,8 @@ internal sealed class SweepCache
 
     /// <summary>A lossy segment's per-bin factors (see <see cref="SegmentBins"/>); lossless segments are computed in place
     /// (see NetworkEvaluator.EvaluateSweep).</summary>
-    /// <remarks>e^(−2γl) = e^(Re)·(cos Im + j sin Im) is taken four (or two) bins at a time with the vectorised
-    /// exponential, sine and cosine of System.Numerics.Vector: the scalar complex exponential of every bin of every new
-    /// segment length was about a fifth of a lossy locate's processor time. Those functions are within a few ulp, as the
-    /// scalar ones are (the per-bin phase stays far below their 5·10⁶ limit for a fast reduction).</remarks>
+    /// <remarks>e^(−2γl) is taken several bins at a time (<see cref="VectorExponential"/>): the scalar complex exponential
+    /// of every bin of every new segment length was about a fifth of a lossy locate's processor time.</remarks>
     internal SegmentBins Segment(Grid grid, CableMedium medium, double lengthMeters)
     {
         var key = new SegmentKey(KeyOf(grid, medium), lengthMeters);
@@ -218,22 +216,7 @@ internal sealed class SweepCache
             real[k] = -2 * lengthMeters * m.Gamma[k].Real;
             imaginary[k] = -2 * lengthMeters * m.Gamma[k].Imaginary;
         }
-        int width = Vector<double>.Count, i = 0;
-        for (; i + width <= count; i += width)
-        {
-            var size = Vector.Exp(new Vector<double>(real, i));
-            var (sin, cos) = Vector.SinCos(new Vector<double>(imaginary, i));
-            (size * cos).CopyTo(real, i);
-            (size * sin).CopyTo(imaginary, i);
-        }
-        for (; i < count; i++)
-        {
-            double size = Math.Exp(real[i]);
-            var (sin, cos) = Math.SinCos(imaginary[i]);
-            real[i] = size * cos;
-            imaginary[i] = size * sin;
-        }
-        for (int k = 0; k < count; k++) bins.E[k] = new Complex(real[k], imaginary[k]);
+        VectorExponential.Fill(real.AsSpan(0, count), imaginary.AsSpan(0, count), bins.E);
         SweepBuffers<double>.Return(real);
         SweepBuffers<double>.Return(imaginary);
         Trim(count + 3L * small);
