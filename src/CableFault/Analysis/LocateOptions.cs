@@ -35,6 +35,11 @@ public sealed record LocateOptions
     /// runs), so it is for instruments known to creep. Default false.</summary>
     public bool EstimateSettling { get; init; }
 
+    /// <summary>While the loss is estimated, start the model selection that follows on the cores the probe leaves idle,
+    /// and keep it when the probe finds no loss (the result is the same either way; see Speculation). Turn it off where
+    /// traces are already worked on side by side (a batch): there it would only take cores from the others. Default true.</summary>
+    public bool SelectAheadOfLossProbe { get; init; } = true;
+
     /// <summary>Round-trip time from the incident edge's 50 % point to the reference plane, s (e.g. a launch lead's
     /// delay found by calibration); distances are measured from there. Null means zero.</summary>
     public double? TimeZeroOffsetSeconds { get; init; }

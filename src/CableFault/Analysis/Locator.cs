@@ -109,14 +109,15 @@ public static class Locator
         if (estimateLoss)
         {
             // Most runs read as lossless, and then the selection starts from the detector's events as they are: it runs
-            // beside the probe, on the cores the probe's fits leave idle, and is kept when the probe finds no loss (with
-            // a settling probe to follow, its start is not yet known).
-            var lossless = initial;
-            if (options.EstimateSettling)
+            // beside the probe, on the cores the probe's fits leave idle, and is kept when the probe finds no loss. Not
+            // with a settling probe to follow (the selection's start is not yet known), nor while diagnosing (the stages'
+            // times, runs and trace lines are read one stage after another).
+            var (lossless, coarse, coarseRise) = (initial, data, riseEffective);
+            if (!options.SelectAheadOfLossProbe || options.EstimateSettling || ModelSelection.DebugTrace is not null)
                 estimatedLoss = LossEstimation.Estimate(initial, data, options.CancellationToken);
             else
-                (estimatedLoss, selectedAhead, _) = Speculation.Run(() => LossEstimation.Estimate(lossless, data, options.CancellationToken),
-                    token => ModelSelection.Select(lossless, data, riseEffective, token), loss => loss is null, options.CancellationToken);
+                (estimatedLoss, selectedAhead, _) = Speculation.Run(() => LossEstimation.Estimate(lossless, coarse, options.CancellationToken),
+                    token => ModelSelection.Select(lossless, coarse, coarseRise, token), loss => loss is null, options.CancellationToken);
             // A lossy run keeps its loss as two parameters of the model: every full refit in the selection (the first,
             // after a removal, the polish) estimates it again with the events as they then are.
             context = context with { Loss = estimatedLoss, EstimateLoss = estimatedLoss is not null };

@@ -113,7 +113,8 @@ internal static class ResolutionRefinement
             var m = best.Model;
             if (m.Events[k].Element != RunModelElement.Boundary
                 || Math.Abs(ModelSelection.LocalReflection(m, k)) < EventClassifier.EndReflection) continue;
-            // All fitted side by side; the first in order that does not lose is taken, as if they had been tried in turn.
+            // All fitted side by side; the first in order that does not lose is taken, as if they had been tried in turn
+            // (the later ones are fitted on the idle core regardless, and counted as trials only if reached in turn).
             var spots = ReactiveSections.SpotCandidates(m, k, fineRiseSeconds).ToList();
             var fits = FitSideBySide(spots.Select(c => (c, FreeAround(c, k - 1, k + 1))).ToList(), fine, variance, cancellation);
             foreach (var fit in fits)

@@ -23,16 +23,18 @@ internal static class Speculation
         using var aheadCancellation = CancellationTokenSource.CreateLinkedTokenSource(cancellation);
         var aheadTask = Task.Run(() => ahead(aheadCancellation.Token), CancellationToken.None);
         TFirst result;
+        bool keep;
         try
         {
             result = first();
+            keep = keepsAhead(result);
         }
         catch
         {
             Discard(aheadTask, aheadCancellation);
             throw;
         }
-        if (!keepsAhead(result))
+        if (!keep)
         {
             Discard(aheadTask, aheadCancellation);
             return (result, default, false);

@@ -11,7 +11,8 @@ namespace CableFault.Simulation;
 /// The principal root of w = a + jb by the usual stable formula: with r = |w| and t = √((r + |a|)/2), √w = t + j·b/(2t)
 /// when a ≥ 0, else |b|/(2t) + j·sign(b)·t (no difference of nearly equal numbers). Since |γ|² = |w| = r, 1/γ = γ*/r, so Z_c
 /// and 1/Z_c take products only. |w| is formed without rescaling: per-metre impedances and admittances of cables are far
-/// from the squares' overflow (10¹⁵⁴).
+/// from the squares' overflow (10¹⁵⁴); where the squares vanish (w = 0 at s = 0, or below 10⁻¹⁶² by underflow) the bin
+/// is taken as γ = 0.
 /// </remarks>
 internal static class LossyPropagation
 {
@@ -53,12 +54,16 @@ internal static class LossyPropagation
             gamma[i] = new Complex(gr, gi);
         }
         for (i = 0; i < count; i++)
-            if (zReal[i] * yReal[i] - zImaginary[i] * yImaginary[i] == 0 && zReal[i] * yImaginary[i] + zImaginary[i] * yReal[i] == 0)
+        {
+            // |w|² as the root formed it: zero there made 1/|w| infinite.
+            double a = zReal[i] * yReal[i] - zImaginary[i] * yImaginary[i], b = zReal[i] * yImaginary[i] + zImaginary[i] * yReal[i];
+            if (a * a + b * b == 0)
             {
                 gamma[i] = Complex.Zero;
                 zc[i] = nominalOhms;
                 inverseZc[i] = 1 / nominalOhms;
             }
+        }
     }
 
     /// <summary>The principal root of a + jb per lane, and 1/|a + jb|.</summary>

@@ -239,7 +239,8 @@ internal sealed class NetworkEvaluator
     /// A segment's scaled ABCD matrix (see <see cref="SegmentMatrix"/>) applied as its two travelling waves: with
     /// A = (1 + e)/2, B = Z_c(1 − e)/2, C = (1 − e)/(2Z_c) and e = e^(−2γl), the wave P = (N + Z_c·D)/2 passes unchanged and
     /// M = (N − Z_c·D)/2 comes back turned by e, so N′ = P + e·M and D′ = (P − e·M)/Z_c: three complex products per bin
-    /// instead of four, and no division. Then <see cref="Normalise"/>.
+    /// instead of four, with 1/Z_c kept per medium (the entries' C = sinh/Z_c took a division per bin of every segment).
+    /// Then <see cref="Normalise"/>.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     internal static void ApplyTravellingWaves(Complex[] n, Complex[] d, int k, Complex e, Complex zc, Complex inverseZc)

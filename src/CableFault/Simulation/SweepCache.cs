@@ -6,7 +6,7 @@ namespace CableFault.Simulation;
 
 /// <summary>
 /// Per-bin quantities of the forward model kept across calls that share a frequency contour: the stimulus factor,
-/// each medium's propagation and each lossy segment's ABCD entries. A model fit simulates the same run hundreds of times
+/// each medium's propagation and each lossy segment's e^(−2γl). A model fit simulates the same run hundreds of times
 /// with one or two lengths or lumped values changed (every Jacobian column), so nearly all of these repeat; the
 /// per-bin square roots, powers and exponentials then cost once rather than once per call.
 /// </summary>
@@ -31,8 +31,10 @@ internal sealed class SweepCache
     internal sealed record MediumBins(Complex[] Gamma, Complex[] Zc, Complex[] ZSeries, Complex[] YShunt, Complex[] InverseZc);
 
     /// <summary>A lossy segment per bin: e^(−2γl) (see <see cref="NetworkEvaluator.ApplyTravellingWaves"/>), and over its
-    /// first <see cref="SmallBins"/> bins, where |γl| is too small for Z_c = Z′/γ to be taken safely near s = 0, the
-    /// scaled ABCD entries of <see cref="NetworkEvaluator.SegmentMatrix"/> instead.</summary>
+    /// first <see cref="SmallBins"/> bins, where |γl| is small, the scaled ABCD entries of
+    /// <see cref="NetworkEvaluator.SegmentMatrix"/> from their series instead: there 1 − e loses digits (about ε/|γl|
+    /// relative), and at s = 0 on a contour through the origin γ = 0, where the waves' form would drop the series
+    /// resistance R′l that the series keeps.</summary>
     internal sealed record SegmentBins(Complex[] E, int SmallBins, Complex[] A, Complex[] B, Complex[] C);
 
     private readonly ConcurrentDictionary<MediumKey, MediumBins> _media = new();
@@ -127,7 +129,9 @@ internal sealed class SweepCache
         return _delays.GetOrAdd(key, delays);
     }
 
-    /// <summary>γ, Z_c, Z′ and Y′ of a medium per bin, as <see cref="NetworkEvaluator"/> computes them.</summary>
+    /// <summary>γ, Z_c, Z′, Y′ and 1/Z_c of a medium per bin: Z′ and Y′ as <see cref="CableMedium"/> computes them; for a
+    /// lossy medium γ and Z_c from <see cref="LossyPropagation"/> (within a few ulp of NetworkEvaluator.Propagation's
+    /// complex root and division).</summary>
     internal MediumBins Medium(Grid grid, CableMedium medium)
     {
         var key = KeyOf(grid, medium);

@@ -4,7 +4,7 @@ namespace CableFault.Simulation;
 
 /// <summary>
 /// e^z for many complex z at once: e^(Re z)·(cos Im z + j sin Im z) with the vectorised exponential, sine and cosine of
-/// System.Numerics.Vector, four (or two) at a time: a lossy segment's e^(−2γl) per bin, for every new segment length of a
+/// System.Numerics.Vector, as many at a time as a vector holds: a lossy segment's e^(−2γl) per bin, for every new segment length of a
 /// fit, was a fifth of a lossy locate's processor time taken one by one.
 /// </summary>
 /// <remarks>The vector functions are within a few ulp, as the scalar ones are; their fast argument reduction holds to

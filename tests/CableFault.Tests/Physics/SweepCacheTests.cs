@@ -15,8 +15,9 @@ public class SweepCacheTests
     /// so 1e-12 leaves a wide margin over rounding and still catches a wrong bin, sign or conjugate.</summary>
     private const double FftRelativeTolerance = 1e-12;
 
-    /// <summary>Agreement of the cached and plain simulations, relative to the incident amplitude. The per-bin values are
-    /// the same operations; only the transform differs, and the damped contour multiplies its rounding by up to
+    /// <summary>Agreement of the cached and plain simulations, relative to the incident amplitude. The per-bin values agree
+    /// to a few ulp (the same operations, except a lossy medium's root and a lossy segment's exponential, which the cache
+    /// takes several bins at a time), the transforms differ, and the damped contour multiplies their rounding by up to
     /// e^(σt) ≈ 1e8 late in the record (ForwardModel's balanced error), so 1e-7 of the step is the bound.</summary>
     private const double SimulationRelativeTolerance = 1e-7;
 
@@ -203,32 +204,48 @@ public class SweepCacheTests
     /// <summary>
     /// A lossy segment in the sweep (e^(−2γl) from the vectorised exponential, sine and cosine, applied as two travelling
     /// waves) against the closed form of a line's input impedance, Z_in = Z_c (Z_L + Z_c tanh γl)/(Z_c + Z_L tanh γl)
-    /// (Pozar, <i>Microwave Engineering</i>, 4th ed., eq. 2.44), bin by bin, as the reflection coefficient against 50 Ω
-    /// (bounded where Z_in is not). The segments cover a bin 0 small enough for the series (5 mm), an ordinary run, and a
-    /// long lossy one whose e^(−2γl) underflows at the top bins; the loads cover open, short and resistive ends.
+    /// (Pozar, <i>Microwave Engineering</i>, 4th ed., §2.7 on lossy lines; section from memory), bin by bin, as the
+    /// reflection coefficient against 50 Ω (bounded where Z_in is not). The segments cover a bin 0 small enough for the
+    /// series (5 mm), an ordinary run, and a long lossy one whose e^(−2γl) underflows at the top bins; the loads cover open,
+    /// short and resistive ends. On a contour through s = 0 (σ = 0) the line at bin 0 is its series resistance alone,
+    /// Z_in = Z_L + R′l (Y′ vanishes with s): the case the series entries of the first bins are kept for.
     /// </summary>
-    /// <remarks>The phase 2βl reaches about 10⁵ rad on the long segment, where the rounding of the argument alone is
-    /// ~10⁻¹¹ rad; 1e-9 leaves a margin over that and still catches a wrong sign, factor or bin.</remarks>
+    /// <remarks>The phase 2βl at the top bin is about 5·10³ rad on the 37 m segment, where the rounding of its argument
+    /// alone is ~10⁻¹² rad (on the 3 km one, 4·10⁵ rad, but there e^(−2γl) has underflowed); 1e-9 leaves a margin over
+    /// that and still catches a wrong sign, factor or bin, and a dropped R′l (3·10⁻² here).</remarks>
     [Theory]
-    [InlineData(0.005, 1e-5, 0.0)]
-    [InlineData(37.0, 3e-6, 0.02)]
-    [InlineData(3000.0, 1e-5, 0.1)]
-    public void LossySegmentGivesTheClosedFormInputImpedance(double lengthMeters, double skinNepersPerMeterPerRootHertz, double dcOhmsPerMeter)
+    [InlineData(0.005, 1e-5, 0.0, 2e6)]
+    [InlineData(37.0, 3e-6, 0.02, 2e6)]
+    [InlineData(3000.0, 1e-5, 0.1, 2e6)]
+    [InlineData(37.0, 3e-6, 0.02, 0.0)]
+    public void LossySegmentGivesTheClosedFormInputImpedance(double lengthMeters, double skinNepersPerMeterPerRootHertz, double dcOhmsPerMeter,
+        double contourSigma)
     {
         var medium = new Cables.CableMedium(62, 0.71, new Cables.CableLossModel(skinNepersPerMeterPerRootHertz, 2e-11, dcOhmsPerMeter));
+        var grid = SmallGrid with { Sigma = contourSigma };
         var cache = new SweepCache();
         foreach (var (end, loadOhms) in new[] { (RunEnd.Open, double.PositiveInfinity), (RunEnd.Short, 0.0), (RunEnd.Resistor(17), 17.0) })
         {
             var compiled = new CompiledNetwork(new CableNetwork(new NetworkBranch([new CableSegment(lengthMeters, medium), end])));
-            var (n, d) = NetworkEvaluator.EvaluateSweep(compiled, cache, SmallGrid);
-            for (int k = 0; k < SmallGrid.BinCount; k++)
+            var (n, d) = NetworkEvaluator.EvaluateSweep(compiled, cache, grid);
+            for (int k = 0; k < grid.BinCount; k++)
             {
-                var s = new Complex(SmallGrid.Sigma, k * SmallGrid.DOmega);
-                var (gamma, zc, _, _) = NetworkEvaluator.Propagation(medium, s);
-                // tanh x = (1 − e^(−2x))/(1 + e^(−2x)), which stays finite for a large Re x.
-                Complex e = Complex.Exp(-2 * gamma * lengthMeters), tanh = (1 - e) / (1 + e);
-                Complex zIn = double.IsPositiveInfinity(loadOhms) ? zc / tanh : zc * (loadOhms + zc * tanh) / (zc + loadOhms * tanh);
-                Complex expected = (zIn - 50) / (zIn + 50), swept = (n[k] - 50 * d[k]) / (n[k] + 50 * d[k]);
+                var s = new Complex(grid.Sigma, k * grid.DOmega);
+                Complex expected;
+                if (s == Complex.Zero)
+                {
+                    double zInOhms = loadOhms + dcOhmsPerMeter * lengthMeters;
+                    expected = double.IsPositiveInfinity(zInOhms) ? 1 : (zInOhms - 50) / (zInOhms + 50);
+                }
+                else
+                {
+                    var (gamma, zc, _, _) = NetworkEvaluator.Propagation(medium, s);
+                    // tanh x = (1 − e^(−2x))/(1 + e^(−2x)), which stays finite for a large Re x.
+                    Complex e = Complex.Exp(-2 * gamma * lengthMeters), tanh = (1 - e) / (1 + e);
+                    Complex zIn = double.IsPositiveInfinity(loadOhms) ? zc / tanh : zc * (loadOhms + zc * tanh) / (zc + loadOhms * tanh);
+                    expected = (zIn - 50) / (zIn + 50);
+                }
+                Complex swept = (n[k] - 50 * d[k]) / (n[k] + 50 * d[k]);
                 Assert.True((swept - expected).Magnitude < 1e-9, $"{end.Kind} after {lengthMeters} m, bin {k}: {swept} against {expected}");
             }
             SweepBuffers<Complex>.Return(n);

@@ -57,6 +57,19 @@ public class TraceCsvLimitTests
         Assert.InRange(stream.BytesServed, TraceCsvReader.MaxLineChars, TraceCsvReader.MaxLineChars + ReadAheadAllowanceBytes);
     }
 
+    /// <summary>The line limit counts a line's characters across the reader's 16 384-character blocks: a data row padded
+    /// to exactly the limit (spanning several blocks) is read, one character more is refused with its line number.</summary>
+    [Fact]
+    public void A_line_of_exactly_the_limit_spanning_blocks_is_read_and_one_more_character_is_refused()
+    {
+        string Row(int length) => "1e-9,0.5".PadRight(length);
+        string Text(int length) => "time_s,volts\n0,0.25\n" + Row(length) + "\n2e-9,0.75\n";
+        var read = TraceCsvReader.ReadWithWarnings(new StringReader(Text(TraceCsvReader.MaxLineChars)), "wide.csv");
+        Assert.Equal([0.25, 0.5, 0.75], read.Trace.SamplesVolts.ToArray());
+        var ex = Assert.Throws<InputException>(() => TraceCsvReader.ReadWithWarnings(new StringReader(Text(TraceCsvReader.MaxLineChars + 1)), "wide.csv"));
+        Assert.Contains("line 3: longer than 65536 characters", ex.Message);
+    }
+
     [Fact]
     public void Text_reader_input_is_counted_in_characters()
     {

@@ -213,6 +213,10 @@ public class TraceCsvReaderTests
         Assert.Empty(r.Warnings);
         AssertSamples(expected.ToArray(), r.Trace);
         AssertClose(1e-9, r.Trace.SampleIntervalSeconds);
+        // A CRLF split across the blocks is one line break: a bad row after it is reported at its own line number
+        // (the header, then one line per row; blank lines would hide a doubled break but shift the number).
+        var ex = Assert.Throws<InputException>(() => ReadText(text + "x,y\r\n"));
+        Assert.Contains($"line {expected.Count + 2}:", ex.Message);
     }
 
     [Fact]

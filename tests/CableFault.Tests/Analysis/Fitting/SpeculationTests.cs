@@ -62,6 +62,8 @@ public class SpeculationTests
             }
             finally
             {
+                // Late, so that a discard that did not wait would return first.
+                Thread.Sleep(50);
                 Volatile.Write(ref stopped, 1);
             }
         }, _ => true, CancellationToken.None));
@@ -87,9 +89,31 @@ public class SpeculationTests
             return 1;
         }, token =>
         {
-            token.WaitHandle.WaitOne();
+            // Bounded only so that an unlinked token fails the test (the step then returns normally) instead of hanging it.
+            token.WaitHandle.WaitOne(TimeSpan.FromMinutes(1));
             token.ThrowIfCancellationRequested();
             return 0;
         }, _ => true, caller.Token));
+    }
+
+    [Fact]
+    public void AFailingDecisionDiscardsTheAheadStepAndIsRethrown()
+    {
+        int stopped = 0;
+        Assert.Throws<FormatException>(() => Speculation.Run<int, int>(() => 1, token =>
+        {
+            try
+            {
+                token.WaitHandle.WaitOne();
+                token.ThrowIfCancellationRequested();
+                return 0;
+            }
+            finally
+            {
+                Thread.Sleep(50);
+                Volatile.Write(ref stopped, 1);
+            }
+        }, _ => throw new FormatException(), CancellationToken.None));
+        Assert.Equal(1, Volatile.Read(ref stopped));
     }
 }

@@ -44,4 +44,23 @@ public class UnknownLossTests
         Assert.InRange(end.DistanceMeters, 80 - DistanceTolerance(80), 80 + DistanceTolerance(80));
         Assert.Contains(result.Warnings, w => w.Contains("read as lossless", StringComparison.Ordinal));
     }
+
+    /// <summary>
+    /// While the loss is estimated, the selection runs ahead beside the probe and is kept when the probe finds no loss
+    /// (Speculation). On a lossless run with a spot and a step, that reading must be bit for bit the one the probe and
+    /// then the selection give one after the other, and the one given when the run is told lossless.
+    /// </summary>
+    [Fact]
+    public void TheSelectionRunAheadOfTheProbeIsTheOneRunAfterIt()
+    {
+        var trace = Simulate(Run(Segment(30), new ShuntCapacitor(6e-12), Segment(25), Segment(40, 75), RunEnd.Open));
+        var ahead = Locator.Locate(trace, Options() with { EstimateLoss = true });
+        var afterwards = Locator.Locate(trace, Options() with { EstimateLoss = true, SelectAheadOfLossProbe = false });
+        var told = Locator.Locate(trace, Options());
+        string Reading(LocateResult r) => string.Join("; ", r.Events.Select(e =>
+            $"{e.Kind} {e.DistanceMeters:R} m ±{e.DistanceSigmaMeters:R} ρ {e.Reflection:R} Z {e.ImpedanceOhms:R} v {e.Value:R}"));
+        Assert.Equal(3, ahead.Events.Count);
+        Assert.Equal(Reading(afterwards), Reading(ahead));
+        Assert.Equal(Reading(told), Reading(ahead));
+    }
 }
