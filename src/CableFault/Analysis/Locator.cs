@@ -65,6 +65,24 @@ public static class Locator
         }
     }
 
+    /// <summary>Half-settling times of the last candidate's echo kept after it on a lossy cable.</summary>
+    internal const double LossySettlingTimes = 10;
+
+    /// <summary>
+    /// How long the echo of an event at round trip <paramref name="roundTripSeconds"/> takes to settle on a cable with
+    /// <paramref name="loss"/>, s: <see cref="LossySettlingTimes"/> times its half-settling time. Skin effect makes the
+    /// round trip's step response erfc(a/(2√t)) with a = 2dk/√π (the loss e^(−a√s), k in Np/m/√Hz, d = v·t/2), which
+    /// reaches half its step at t₅₀ = (a/0.954)² (erfc(0.477) = 0.5) and creeps on far longer. The level it settles to
+    /// (through the run's resistance) is what tells a short from a change of line, so the window must reach past it.
+    /// </summary>
+    internal static double LossySettlingSeconds(CableLossModel? loss, double velocityMetersPerSecond, double roundTripSeconds)
+    {
+        if (loss is null || loss.SkinLossNepersPerMeterPerRootHertz <= 0) return 0;
+        double a = loss.SkinLossNepersPerMeterPerRootHertz * velocityMetersPerSecond * roundTripSeconds / Math.Sqrt(Math.PI);
+        double halfSeconds = a / 0.954 * (a / 0.954);
+        return LossySettlingTimes * halfSeconds;
+    }
+
     /// <summary>The fit and classification, from the conditioning's outputs.</summary>
     internal static LocateResult Refine(Trace aligned, TraceCharacteristics characteristics, ImpedanceProfile profile,
         IReadOnlyList<EventCandidate> candidates, LocateOptions options)
@@ -99,7 +117,8 @@ public static class Locator
         double firstTime = initial.Events.Count > 0 ? initial.Events[0].RoundTripSeconds : 0;
         // Keep the first echoes of the last event off the earlier ones (at t_last + (t_last − t_i)): they carry the
         // levels that tell a shunt resistor from an impedance drop and a termination from a change of line.
-        double end = lastTime + Math.Max(WindowTailRiseTimes * rise + 5 * tailTau, lastTime - firstTime + 8 * rise);
+        double end = lastTime + Math.Max(Math.Max(WindowTailRiseTimes * rise + 5 * tailTau, lastTime - firstTime + 8 * rise),
+            LossySettlingSeconds(options.Loss, v, lastTime));
         var data = FitData.Prepare(aligned, -WindowLeadRiseTimes * rise, end, rise, characteristics.NoiseRmsVolts);
         double riseEffective = data.EffectiveRiseSeconds(rise);
         options.Progress?.Report(0.4);

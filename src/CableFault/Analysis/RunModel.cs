@@ -236,6 +236,9 @@ internal sealed class RunModel
         return new NetworkBranch(elements);
     }
 
+    /// <summary>The samples of a model the simulator cannot run (see <see cref="Simulate"/>), V: far beyond any trace.</summary>
+    private const double UnreachableVolts = 1e6;
+
     /// <summary>
     /// The model's samples at the fit data's sample times. The data were low-passed by a Gaussian of σ_g, which for a
     /// Gaussian edge is the same as an edge of σ = √(σ_r² + σ_g²): the filter is folded into the stimulus exactly.
@@ -245,8 +248,21 @@ internal sealed class RunModel
     internal double[] Simulate(FitData data, SweepSnapshots? resumeFrom = null)
     {
         Interlocked.Increment(ref SimulationCount);
-        var samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), Settings(data), data.Cache,
-            ForwardModel.FitMaximumUndamping, resumeFrom);
+        double[] samples;
+        try
+        {
+            samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), Settings(data), data.Cache,
+                ForwardModel.FitMaximumUndamping, resumeFrom);
+        }
+        catch (InputException)
+        {
+            // A trial step far off (the edge moved far before the window with its rise near the bound) can ask for
+            // an internal transform beyond the simulator's limit. That model is no reading of the trace: a level far
+            // from any trace makes the fit reject the step, as it rejects any step that fits worse.
+            samples = new double[data.Samples.Length];
+            Array.Fill(samples, UnreachableVolts);
+            return samples;
+        }
         if (OffsetVolts != 0)
             for (int i = 0; i < samples.Length; i++) samples[i] += OffsetVolts;
         return samples;

@@ -1,0 +1,48 @@
+using CableFault.Analysis;
+using CableFault.Cables;
+using CableFault.Networks;
+using MathNet.Numerics;
+using static CableFault.Tests.Analysis.Locate.LocateFixtures;
+
+namespace CableFault.Tests.Analysis.Locate;
+
+/// <summary>
+/// On a thin lossy cable an echo from far away settles over microseconds (skin effect), and the fit window must reach
+/// past it: the level it settles to is what tells a short through the run's resistance from a mere change of line.
+/// </summary>
+public class LossyEchoWindowTests
+{
+    /// <summary>The built-in RG-174 (29 dB/100 m at 100 MHz and 100 at 1 GHz: typical data-sheet figures, from memory).</summary>
+    private static readonly CableLossModel MiniatureCoaxLoss = CableLibrary.BuiltIn.Get("RG-174").Medium.Loss;
+
+    private static CableSegment Lossy(double meters) => new(meters, new CableMedium(ImpedanceOhms, VelocityFactor, MiniatureCoaxLoss));
+
+    /// <summary>The half-settling time is where the skin-effect step response erfc(a/(2√t)) of a line with loss e^(−a√s)
+    /// reaches one half (the inverse Laplace transform of e^(−a√s)/s; e.g. Abramowitz and Stegun, Handbook of Mathematical
+    /// Functions, 29.3.83); erfc from MathNet as the independent reference.</summary>
+    [Theory]
+    [InlineData(100.0)]
+    [InlineData(1000.0)]
+    public void TheWindowsTailIsTenHalfSettlingTimesOfTheSkinEffectStep(double meters)
+    {
+        double v = VelocityFactor * 299_792_458.0, roundTrip = 2 * meters / v;
+        double a = MiniatureCoaxLoss.SkinLossNepersPerMeterPerRootHertz * 2 * meters / Math.Sqrt(Math.PI);
+        double halfSeconds = Locator.LossySettlingSeconds(MiniatureCoaxLoss, v, roundTrip) / Locator.LossySettlingTimes;
+        Assert.InRange(SpecialFunctions.Erfc(a / (2 * Math.Sqrt(halfSeconds))), 0.499, 0.501);
+        Assert.Equal(0, Locator.LossySettlingSeconds(null, v, roundTrip));
+    }
+
+    [Fact]
+    public void ASpliceAndAShortFarDownAThinLossyRunAreFoundWithTheLossTold()
+    {
+        // A 6 Ω series resistance (a corroded splice) at 60 m and a short at 120 m, whose echo settles over microseconds.
+        var network = Run(Lossy(60), new SeriesResistor(6), Lossy(60), RunEnd.Short);
+        var result = Locator.Locate(Simulate(network, noiseVolts: 2e-4), Options() with { Loss = MiniatureCoaxLoss });
+        string found = Describe(result) + " | " + result.Fit.Message + " | " + string.Join(" | ", result.Warnings);
+        Assert.True(result.Events.Count == 2, $"expected the splice and the short, found: {found}");
+        Assert.True(result.Events[0].Kind == EventKind.SeriesResistance, found);
+        Assert.InRange(result.Events[0].DistanceMeters, 60 - DistanceTolerance(60), 60 + DistanceTolerance(60));
+        Assert.True(result.Events[1].Kind == EventKind.Short, found);
+        Assert.InRange(result.Events[1].DistanceMeters, 120 - DistanceTolerance(120), 120 + DistanceTolerance(120));
+    }
+}
