@@ -51,24 +51,11 @@ public class SpeculationTests
     [Fact]
     public void AFailureOfTheFirstStepIsRethrownAfterTheAheadStepStopped()
     {
-        int stopped = 0;
-        var error = Assert.Throws<InvalidOperationException>(() => Speculation.Run<int, int>(() => throw new InvalidOperationException("probe"), token =>
-        {
-            try
-            {
-                token.WaitHandle.WaitOne();
-                token.ThrowIfCancellationRequested();
-                return 0;
-            }
-            finally
-            {
-                // Late, so that a discard that did not wait would return first.
-                Thread.Sleep(50);
-                Volatile.Write(ref stopped, 1);
-            }
-        }, _ => true, CancellationToken.None));
+        var ahead = new StopsWhenCancelled();
+        var error = Assert.Throws<InvalidOperationException>(() => Speculation.Run<int, int>(() => throw new InvalidOperationException("probe"),
+            ahead.Run, _ => true, CancellationToken.None));
         Assert.Equal("probe", error.Message);
-        Assert.Equal(1, Volatile.Read(ref stopped));
+        Assert.True(ahead.Stopped);
     }
 
     [Fact]
@@ -99,8 +86,20 @@ public class SpeculationTests
     [Fact]
     public void AFailingDecisionDiscardsTheAheadStepAndIsRethrown()
     {
-        int stopped = 0;
-        Assert.Throws<FormatException>(() => Speculation.Run<int, int>(() => 1, token =>
+        var ahead = new StopsWhenCancelled();
+        Assert.Throws<FormatException>(() => Speculation.Run<int, int>(() => 1, ahead.Run, _ => throw new FormatException(), CancellationToken.None));
+        Assert.True(ahead.Stopped);
+    }
+
+    /// <summary>An ahead step that only a cancellation ends, and that marks itself stopped late (so that a discard that
+    /// did not wait for it would return first).</summary>
+    private sealed class StopsWhenCancelled
+    {
+        private int _stopped;
+
+        internal bool Stopped => Volatile.Read(ref _stopped) == 1;
+
+        internal int Run(CancellationToken token)
         {
             try
             {
@@ -111,9 +110,8 @@ public class SpeculationTests
             finally
             {
                 Thread.Sleep(50);
-                Volatile.Write(ref stopped, 1);
+                Volatile.Write(ref _stopped, 1);
             }
-        }, _ => throw new FormatException(), CancellationToken.None));
-        Assert.Equal(1, Volatile.Read(ref stopped));
+        }
     }
 }
