@@ -141,6 +141,15 @@ public static class Locator
             // after a removal, the polish) estimates it again with the events as they then are.
             context = context with { Loss = estimatedLoss, EstimateLoss = estimatedLoss is not null };
             initial = initial.WithContext(context);
+            // A loss found here was not known when the window was drawn: reach past the last echo's settling, as for a
+            // loss told (the selection has not yet run on these data when a loss is found).
+            double settled = lastTime + LossySettlingSeconds(estimatedLoss, v, lastTime);
+            if (settled > end)
+            {
+                end = settled;
+                data = FitData.Prepare(aligned, -WindowLeadRiseTimes * rise, end, rise, characteristics.NoiseRmsVolts);
+                riseEffective = data.EffectiveRiseSeconds(rise);
+            }
         }
         if (options.EstimateSettling && SettlingEstimation.Estimate(initial, data, options.CancellationToken) is var (fraction, settlingSeconds))
         {
