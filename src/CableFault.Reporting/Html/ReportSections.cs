@@ -18,7 +18,11 @@ internal static class ReportSections
         if (findings.Count == 0)
         {
             html.Append("<p>No events beyond the blind zone (").Append(HtmlText.Escape(unit.Format(input.Result.BlindZoneMeters, 2)))
-                .Append(").</p>\n");
+                .Append(").").Append(input.Result.LeavesTraceUnexplained
+                    ? " The model leaves much of the trace unexplained (see the warnings): do not read this as a sound run."
+                    : input.Result.LevelMovesWithoutEvent || input.Result.LevelStillMovingAtEnd
+                        ? " The level is not that of a uniform run (see the warnings): do not read this as a sound run."
+                        : "").Append("</p>\n");
             return;
         }
         html.Append("<div class=\"tablewrap\"><table class=\"events\">\n<thead><tr>")

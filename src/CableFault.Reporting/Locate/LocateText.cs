@@ -30,7 +30,11 @@ public static class LocateText
         text.AppendLine();
         if (result.Events.Count == 0)
         {
-            text.AppendLine("  No events found: the run looks uniform and matched over the recorded length.");
+            text.AppendLine(result.LeavesTraceUnexplained
+                ? "  No single event stands out, yet the model leaves much of the trace unexplained (see the warnings): do not read this as a sound run. Give the cable type (for its loss) or check VF and Z0."
+                : result.LevelMovesWithoutEvent || result.LevelStillMovingAtEnd
+                    ? "  No single event stands out, yet the level is not that of a uniform run (see the warnings): do not read this as a sound run. A slow change on a lossy cable can escape the detector; give the cable type and look at the trace."
+                    : "  No events found: the run looks uniform and matched over the recorded length.");
         }
         else
         {

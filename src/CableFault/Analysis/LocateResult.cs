@@ -16,4 +16,18 @@ namespace CableFault.Analysis;
 /// was long), or null when no model was fitted.</param>
 public sealed record LocateResult(Trace AlignedTrace, TraceCharacteristics Characteristics, ImpedanceProfile Profile,
     IReadOnlyList<LocatedEvent> Events, FitReport Fit, double BlindZoneMeters, LocateOptions Options,
-    IReadOnlyList<string> Warnings, Trace? ModelTrace);
+    IReadOnlyList<string> Warnings, Trace? ModelTrace)
+{
+    /// <summary>True when the fit left part of the trace unexplained (a warning says how much): an empty or short event
+    /// list is then no sign of a sound run (a slow, smeared echo on a very lossy cable can escape the detector).</summary>
+    public bool LeavesTraceUnexplained => Warnings.Any(w => w.StartsWith(Locator.ResidualWarningLead, StringComparison.Ordinal));
+
+    /// <summary>True when the level still moves at the end of the record (a warning says so): the run is then not shown
+    /// to be uniform, whether or not any event was found.</summary>
+    public bool LevelStillMovingAtEnd => Warnings.Any(w => w.StartsWith(TraceConditioner.StillMovingWarningLead, StringComparison.Ordinal));
+
+    /// <summary>True when no event was found although the level strays far from the incident plateau (a warning says
+    /// how far): the empty list is then no sign of a sound run (see SlowChange).</summary>
+    public bool LevelMovesWithoutEvent => Warnings.Any(w => w.StartsWith(SlowChange.WarningLead, StringComparison.Ordinal));
+}
+

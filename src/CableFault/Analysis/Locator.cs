@@ -65,6 +65,10 @@ public static class Locator
         }
     }
 
+    /// <summary>How the warning begins that the fit left part of the trace unexplained (see
+    /// <see cref="LocateResult.LeavesTraceUnexplained"/>).</summary>
+    internal const string ResidualWarningLead = "the model leaves a residual of";
+
     /// <summary>Half-settling times of the last candidate's echo kept after it on a lossy cable.</summary>
     internal const double LossySettlingTimes = 10;
 
@@ -268,11 +272,12 @@ public static class Locator
         double rms = Math.Sqrt(fit.ResidualSumOfSquares / data.Samples.Length);
         if (rms > 3 * Math.Sqrt(selection.VarianceVolts2))
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"the model leaves a residual of {rms:G3} V RMS, {rms / Math.Sqrt(selection.VarianceVolts2):0.#} times the noise: part of the trace is not explained; check the cable settings (Z0, VF, loss)."));
+                $"{ResidualWarningLead} {rms:G3} V RMS, {rms / Math.Sqrt(selection.VarianceVolts2):0.#} times the noise: part of the trace is not explained; check the cable settings (Z0, VF, loss)."));
         if (!fit.Converged) warnings.Add("the model fit stopped at its iteration limit; positions are from the last iterate.");
         string message = string.Create(CultureInfo.InvariantCulture,
             $"{model.Events.Count} event(s); Levenberg–Marquardt on {data.Samples.Length} samples from {data.StartTimeSeconds * 1e9:0.##} to {data.TimeAt(data.Samples.Length - 1) * 1e9:0.##} ns{(data.FilterSigmaSeconds > 0 ? $" (smoothed to {riseEffective * 1e9:0.###} ns rise)" : "")}; {selection.Trials} alternative model(s) tried; BIC with noise {Math.Sqrt(selection.VarianceVolts2):G3} V.");
         var report = new FitReport(fit.Converged, fit.Iterations, rms, model.ParameterCount, "BIC", message);
+        if (located.Count == 0 && SlowChange.Warning(aligned, characteristics, blindSeconds) is { } slow) warnings.Add(slow);
         var modelTrace = new Trace(data.StartTimeSeconds, data.IntervalSeconds, fit.ModelSamples);
         return new LocateResult(aligned, characteristics, profile, located.OrderBy(e => e.DistanceMeters).ToList(), report,
             blindMeters, options, warnings, modelTrace);

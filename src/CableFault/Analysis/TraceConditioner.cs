@@ -14,6 +14,10 @@ namespace CableFault.Analysis;
 /// </remarks>
 public static class TraceConditioner
 {
+    /// <summary>How the warning begins that the level still moves at the record's end (see
+    /// <see cref="LocateResult.LevelStillMovingAtEnd"/>).</summary>
+    internal const string StillMovingWarningLead = "the level is still changing at the end of the record";
+
     /// <summary>Fewest samples a trace must have to be characterised.</summary>
     public const int MinimumSampleCount = 32;
 
@@ -140,7 +144,7 @@ public static class TraceConditioner
         if (noise > HeavyNoiseFraction * Math.Abs(amplitude))
             warnings.Add($"heavy noise: {Fmt(100 * noise / Math.Abs(amplitude))} % of the step; faults smaller than |Δρ| ≈ {Fmt(5 * noise / Math.Abs(amplitude))} cannot be seen — average more sweeps (noise falls as 1/√N).");
         if (StillMovingAtEnd(xs, noise, Math.Abs(amplitude)))
-            warnings.Add("the level is still changing at the end of the record; the far end may lie beyond it — record a longer time window.");
+            warnings.Add(StillMovingWarningLead + "; the far end may lie beyond it — record a longer time window.");
         if (inverted)
             warnings.Add("the incident edge falls (inverted polarity); the trace is inverted before analysis.");
 

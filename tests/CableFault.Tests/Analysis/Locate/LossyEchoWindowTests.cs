@@ -1,6 +1,8 @@
 using CableFault.Analysis;
 using CableFault.Cables;
 using CableFault.Networks;
+using CableFault.Reporting;
+using CableFault.Reporting.Locate;
 using MathNet.Numerics;
 using static CableFault.Tests.Analysis.Locate.LocateFixtures;
 
@@ -63,5 +65,28 @@ public class LossyEchoWindowTests
         double tail = Locator.LossySettlingSeconds(MiniatureCoaxLoss, v, shortRoundTrip);
         Assert.True(result.ModelTrace!.EndTimeSeconds >= shortRoundTrip + tail / 4,
             $"window ends {result.ModelTrace.EndTimeSeconds * 1e9:0} ns; the short's echo at {shortRoundTrip * 1e9:0} ns settles over {tail * 1e9:0} ns");
+    }
+
+    /// <summary>
+    /// An empty event list must not be worded as a sound run when the level says otherwise. At 1 mV of noise a thin
+    /// resistive run's short is smeared below the detector's one-rise-time box (no candidate at all, today) while the
+    /// level falls by half the step: whatever is found, the text may not call the run uniform and matched. A plain
+    /// matched line, which is, still gets that wording.
+    /// </summary>
+    [Fact]
+    public void AnUnexplainedTraceIsNotCalledUniformAndMatched()
+    {
+        // A miniature coax with 0.3 Ω/m of loop resistance besides its skin loss (from memory, typical of 0.5 mm cores).
+        var loss = CableLossModel.FromDatasheet(29, 100e6, dcResistanceOhmsPerMeter: 0.3);
+        CableSegment Resistive(double meters) => new(meters, new CableMedium(ImpedanceOhms, VelocityFactor, loss));
+        var lossy = Locator.Locate(Simulate(Run(Resistive(60), new SeriesResistor(6), Resistive(60), RunEnd.Short)), Options() with { Loss = loss });
+        string lossyText = LocateText.Render(lossy, "lossy.csv", DistanceUnit.Meters);
+        Assert.DoesNotContain("looks uniform and matched", lossyText);
+        Assert.True(lossy.Events.Count > 0 || lossy.LeavesTraceUnexplained || lossy.LevelMovesWithoutEvent, Describe(lossy));
+
+        var matched = Locator.Locate(Simulate(Run(Segment(50), RunEnd.Matched)), Options());
+        Assert.Empty(matched.Events);
+        Assert.False(matched.LeavesTraceUnexplained || matched.LevelMovesWithoutEvent, string.Join(" | ", matched.Warnings));
+        Assert.Contains("looks uniform and matched", LocateText.Render(matched, "matched.csv", DistanceUnit.Meters));
     }
 }
