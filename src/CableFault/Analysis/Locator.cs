@@ -121,8 +121,10 @@ public static class Locator
         double firstTime = initial.Events.Count > 0 ? initial.Events[0].RoundTripSeconds : 0;
         // Keep the first echoes of the last event off the earlier ones (at t_last + (t_last − t_i)): they carry the
         // levels that tell a shunt resistor from an impedance drop and a termination from a change of line.
-        double end = lastTime + Math.Max(Math.Max(WindowTailRiseTimes * rise + 5 * tailTau, lastTime - firstTime + 8 * rise),
-            LossySettlingSeconds(options.Loss, v, lastTime));
+        // On a lossy cable, also past the slow settling of the last echo (see LossySettlingSeconds).
+        double WindowEnd(CableLossModel? loss) => lastTime + Math.Max(Math.Max(WindowTailRiseTimes * rise + 5 * tailTau,
+            lastTime - firstTime + 8 * rise), LossySettlingSeconds(loss, v, lastTime));
+        double end = WindowEnd(options.Loss);
         var data = FitData.Prepare(aligned, -WindowLeadRiseTimes * rise, end, rise, characteristics.NoiseRmsVolts);
         double riseEffective = data.EffectiveRiseSeconds(rise);
         options.Progress?.Report(0.4);
@@ -147,8 +149,7 @@ public static class Locator
             initial = initial.WithContext(context);
             // A loss found here was not known when the window was drawn: reach past the last echo's settling, as for a
             // loss told (the selection has not yet run on these data when a loss is found).
-            double settled = lastTime + LossySettlingSeconds(estimatedLoss, v, lastTime);
-            if (settled > end)
+            if (WindowEnd(estimatedLoss) is var settled && settled > end)
             {
                 end = settled;
                 data = FitData.Prepare(aligned, -WindowLeadRiseTimes * rise, end, rise, characteristics.NoiseRmsVolts);

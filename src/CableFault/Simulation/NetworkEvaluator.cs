@@ -154,8 +154,9 @@ internal sealed class NetworkEvaluator
                         ApplyLosslessSegment(n, d, grid, network.Media[op.Medium], op.Value);
                         break;
                     }
+                    // The segment carries its medium's bins: no second look-up.
                     var segment = cache.Segment(grid, network.Media[op.Medium], op.Value);
-                    var medium = cache.Medium(grid, network.Media[op.Medium]);
+                    var medium = segment.Medium;
                     Complex[] a = segment.A, b = segment.B, c = segment.C;
                     int k0 = 0;
                     for (; k0 < segment.SmallBins; k0++) Apply(n, d, k0, a[k0], b[k0], c[k0]);

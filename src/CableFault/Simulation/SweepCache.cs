@@ -34,8 +34,9 @@ internal sealed class SweepCache
     /// first <see cref="SmallBins"/> bins, where |γl| is small, the scaled ABCD entries of
     /// <see cref="NetworkEvaluator.SegmentMatrix"/> from their series instead: there 1 − e loses digits (about ε/|γl|
     /// relative), and at s = 0 on a contour through the origin γ = 0, where the waves' form would drop the series
-    /// resistance R′l that the series keeps.</summary>
-    internal sealed record SegmentBins(Complex[] E, int SmallBins, Complex[] A, Complex[] B, Complex[] C);
+    /// resistance R′l that the series keeps. The medium's bins it was made from come with it
+    /// (its Z_c and 1/Z_c apply the waves).</summary>
+    internal sealed record SegmentBins(Complex[] E, int SmallBins, Complex[] A, Complex[] B, Complex[] C, MediumBins Medium);
 
     private readonly ConcurrentDictionary<MediumKey, MediumBins> _media = new();
     private readonly ConcurrentDictionary<SegmentKey, SegmentBins> _segments = new();
@@ -210,7 +211,7 @@ internal sealed class SweepCache
         // |γl| grows with the frequency, so the bins too small for Z_c are the first few (usually only bin 0).
         int small = 0;
         while (small < count && (m.Gamma[small] * lengthMeters).Magnitude < NetworkEvaluator.SmallArgument) small++;
-        var bins = new SegmentBins(new Complex[count], small, new Complex[small], new Complex[small], new Complex[small]);
+        var bins = new SegmentBins(new Complex[count], small, new Complex[small], new Complex[small], new Complex[small], m);
         for (int k = 0; k < small; k++)
             (bins.A[k], bins.B[k], bins.C[k]) = NetworkEvaluator.SegmentMatrix(m.Gamma[k] * lengthMeters, m.Zc[k],
                 m.ZSeries[k] * lengthMeters, m.YShunt[k] * lengthMeters);
