@@ -67,8 +67,9 @@ public static class LocateCommand
             var insulation = field.InsulationClass(parsed);
             var list = asBuilt.Load(parsed);
             string? listName = parsed.GetValue(asBuilt.File)?.Name;
-            // Traces worked on side by side already keep the cores busy (see LocateOptions.SelectAheadOfLossProbe).
-            bool selectAhead = true;
+            // Traces worked on side by side already keep the cores busy (see LocateOptions.SelectAheadOfLossProbe and
+            // SplitRunsAcrossCores).
+            bool useIdleCores = true;
             EventsCsv.Entry Locate(string path, Action<string> warn, bool timingSigmaOnly = false)
             {
                 if (BatchInputs.ProblemBeforeReading(path) is string problem) throw new InputException(problem);
@@ -88,7 +89,8 @@ public static class LocateCommand
                 var options = settings.ToLocateOptions() with
                 {
                     TimeZeroOffsetSeconds = offsetSeconds, EstimateSettling = parsed.GetValue(fitSettling),
-                    WarningsInFeet = unit == DistanceUnit.Feet, SelectAheadOfLossProbe = selectAhead,
+                    WarningsInFeet = unit == DistanceUnit.Feet, SelectAheadOfLossProbe = useIdleCores,
+                    SplitRunsAcrossCores = useIdleCores,
                 };
                 // Both ends: the VF cancels, so the σ's must be the timing σ's alone.
                 if (timingSigmaOnly) options = options with { VelocityFactorRelativeSigma = 0 };
@@ -157,7 +159,7 @@ public static class LocateCommand
             if (degree < 1) throw new InputException($"--jobs {degree}: must be 1 or more");
 
             var inputs = BatchInputs.Expand(paths);
-            selectAhead = degree == 1 || inputs.Count == 1;
+            useIdleCores = degree == 1 || inputs.Count == 1;
             var progress = new BatchProgress(context.Error, BatchProgress.IsTerminal(context.Error), inputs.Count);
             var outcomes = BatchRunner.Run(inputs, degree, (path, warn) =>
                 Locate(path, w => warn(BatchRunner.Named(w, path, Path.GetFileName(path)))), context, progress);

@@ -40,6 +40,11 @@ public sealed record LocateOptions
     /// traces are already worked on side by side (a batch): there it would only take cores from the others. Default true.</summary>
     public bool SelectAheadOfLossProbe { get; init; } = true;
 
+    /// <summary>Let a model run that nothing else runs beside (a fit's serial steps) spread its frequency bins over the
+    /// cores; the result is the same bits either way. Turn it off where traces are already worked on side by side (a
+    /// batch). Default true.</summary>
+    public bool SplitRunsAcrossCores { get; init; } = true;
+
     /// <summary>Round-trip time from the incident edge's 50 % point to the reference plane, s (e.g. a launch lead's
     /// delay found by calibration); distances are measured from there. Null means zero.</summary>
     public double? TimeZeroOffsetSeconds { get; init; }

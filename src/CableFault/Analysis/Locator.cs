@@ -1,5 +1,6 @@
 using System.Globalization;
 using CableFault.Cables;
+using CableFault.Simulation;
 using CableFault.Traces;
 
 namespace CableFault.Analysis;
@@ -32,6 +33,8 @@ public static class Locator
         ArgumentNullException.ThrowIfNull(options);
         var problems = options.Problems();
         if (problems.Count > 0) throw new InputException("locate options: " + string.Join("; ", problems) + ".");
+        // A batch's traces already keep the cores busy: their runs keep to their own thread.
+        using var sideBySide = options.SplitRunsAcrossCores ? default : BinSplitting.SideBySide();
         var characteristics = TraceConditioner.Characterise(raw);
         if (!(characteristics.IncidentAmplitudeVolts > MinimumIncidentSignalToNoise * characteristics.NoiseRmsVolts))
             throw new InputException(string.Create(CultureInfo.InvariantCulture,

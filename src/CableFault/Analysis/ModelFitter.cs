@@ -1,3 +1,4 @@
+using CableFault.Simulation;
 using MathNet.Numerics.LinearAlgebra;
 using MathNet.Numerics.Optimization;
 
@@ -72,6 +73,7 @@ internal static class ModelFitter
             using var snapshots = CountRunColumns(u) >= MinimumColumnsForSnapshots ? initial.FromVector(u).Snapshot(data) : null;
             Parallel.For(0, p, new ParallelOptions { CancellationToken = cancellation }, j =>
             {
+                using var sideBySide = BinSplitting.SideBySide();
                 var col = reuse?[j] is { } old && old.Length == f0.Length && free[j] ? old : new double[f0.Length];
                 if (free[j] && IsExactColumn(j, u)) FillExactColumn(j, u, f0, referenceAmplitude, col);
                 else if (free[j])

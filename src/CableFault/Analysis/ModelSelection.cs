@@ -1,3 +1,4 @@
+using CableFault.Simulation;
 namespace CableFault.Analysis;
 
 /// <summary>
@@ -644,7 +645,11 @@ internal static class ModelSelection
         }
         try
         {
-            Parallel.For(0, count, new ParallelOptions { CancellationToken = cancellation }, body);
+            Parallel.For(0, count, new ParallelOptions { CancellationToken = cancellation }, k =>
+            {
+                using var sideBySide = BinSplitting.SideBySide();
+                body(k);
+            });
         }
         catch (AggregateException e)
         {
@@ -782,6 +787,7 @@ internal static class ModelSelection
         var result = new Evidence[m.Events.Count];
         Parallel.For(0, m.Events.Count, i =>
         {
+            using var sideBySide = BinSplitting.SideBySide();
             var without = m.WithEvents(m.Events.Where((_, k) => k != i));
             var f = without.Simulate(data);
             // The signature's peak is looked for near the event only: removing an event also changes every later echo.

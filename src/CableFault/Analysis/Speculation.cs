@@ -1,3 +1,4 @@
+using CableFault.Simulation;
 namespace CableFault.Analysis;
 
 /// <summary>
@@ -21,12 +22,17 @@ internal static class Speculation
         Func<CancellationToken, TAhead> ahead, Func<TFirst, bool> keepsAhead, CancellationToken cancellation)
     {
         using var aheadCancellation = CancellationTokenSource.CreateLinkedTokenSource(cancellation);
-        var aheadTask = Task.Run(() => ahead(aheadCancellation.Token), CancellationToken.None);
+        var aheadTask = Task.Run(() =>
+        {
+            using var sideBySide = BinSplitting.SideBySide();
+            return ahead(aheadCancellation.Token);
+        }, CancellationToken.None);
         TFirst result;
         bool keep;
         try
         {
-            result = first();
+            // Both steps run at once: neither spreads its runs over the other's core.
+            using (BinSplitting.SideBySide()) result = first();
             keep = keepsAhead(result);
         }
         catch

@@ -120,19 +120,24 @@ public static class ForwardModel
             int bins = grid.BinCount;
             var (edge, delays) = cache.Stimulus(grid, settings.EdgeShape, rise, edgeCentre, settings.SettlingFraction,
                 settings.SettlingTimeConstantSeconds);
-            var (ns, ds) = NetworkEvaluator.EvaluateSweep(network, cache, grid, resumeFrom is { } snapshots && snapshots.Grid == grid ? snapshots : null);
-            // The spectrum overwrites N bin by bin (each bin reads only its own N and D).
-            var ys = ns;
-            for (int k = 0; k < bins; k++)
+            using var sweep = new BinSweep(network, cache, grid, resumeFrom is { } snapshots && snapshots.Grid == grid ? snapshots : null);
+            // The spectrum overwrites N bin by bin (each bin reads only its own N and D), range by range: a serial fit's
+            // run spreads its bins over the idle cores (BinSplitting), each bin getting the operations of one pass.
+            Complex[] ns = sweep.N, ds = sweep.D, ys = ns;
+            BinSplitting.ForHalves(bins, (from, to) =>
             {
-                // The same operations in the same order as the uncached loop below.
-                var s = new Complex(sigma, k * dOmega);
-                Complex n = ns[k];
-                Complex h = ComplexMath.Divide(n, zs * ds[k] + n);
-                Complex y = ComplexMath.Divide(ComplexMath.Multiply(ComplexMath.Multiply(h * 2 * amplitude, edge[k]), delays[k]), s);
-                if (k == m / 2) y = new Complex(y.Real, 0);
-                ys[k] = y;
-            }
+                sweep.Run(from, to);
+                for (int k = from; k < to; k++)
+                {
+                    // The same operations in the same order as the uncached loop below.
+                    var s = new Complex(sigma, k * dOmega);
+                    Complex n = ns[k];
+                    Complex h = ComplexMath.Divide(n, zs * ds[k] + n);
+                    Complex y = ComplexMath.Divide(ComplexMath.Multiply(ComplexMath.Multiply(h * 2 * amplitude, edge[k]), delays[k]), s);
+                    if (k == m / 2) y = new Complex(y.Real, 0);
+                    ys[k] = y;
+                }
+            });
             pooled = SweepBuffers<double>.Rent(m);
             InverseFft.Real(ys.AsSpan(0, bins), m, pooled);
             SweepBuffers<Complex>.Return(ns);

@@ -91,110 +91,26 @@ internal sealed class NetworkEvaluator
     internal static (Complex[] N, Complex[] D) EvaluateSweep(CompiledNetwork network, SweepCache cache, SweepCache.Grid grid,
         SweepSnapshots? resumeFrom = null, SweepSnapshots? record = null)
     {
+        if (resumeFrom is not null && record is not null)
+            throw new ArgumentException("A sweep that resumes from recorded pairs does not record.", nameof(record));
         // Operations outer, bins inner: each operation is one tight loop over the bins (no dispatch per bin).
-        int bins = grid.BinCount;
-        var stackN = new Complex[network.MaxStackDepth + 1][];
-        var stackD = new Complex[network.MaxStackDepth + 1][];
-        int top = -1;
-        if (resumeFrom is not null && (record is not null || resumeFrom.Grid != grid))
-            throw new ArgumentException("A sweep resumes only from pairs recorded on its own grid, and does not record while resuming.", nameof(resumeFrom));
-        int first = resumeFrom?.FirstDifference(network) ?? 0;
-        if (first > 0) top = resumeFrom!.Restore(first, stackN, stackD);
-        Complex S(int k) => new(grid.Sigma, k * grid.DOmega);
-        var ops = network.Ops;
-        for (int index = first; index < ops.Length; index++)
-        {
-            var op = ops[index];
-            Complex[] n, d;
-            switch (op.Kind)
-            {
-                case CompiledNetwork.OpKind.Open or CompiledNetwork.OpKind.Short or CompiledNetwork.OpKind.Resistor
-                    or CompiledNetwork.OpKind.Matched or CompiledNetwork.OpKind.ResistorParallelCapacitor:
-                    top++;
-                    n = stackN[top] = SweepBuffers<Complex>.Rent(bins);
-                    d = stackD[top] = SweepBuffers<Complex>.Rent(bins);
-                    var nBins = n.AsSpan(0, bins);
-                    var dBins = d.AsSpan(0, bins);
-                    switch (op.Kind)
-                    {
-                        case CompiledNetwork.OpKind.Open: nBins.Fill(Complex.One); dBins.Clear(); break;
-                        case CompiledNetwork.OpKind.Short: nBins.Clear(); dBins.Fill(Complex.One); break;
-                        case CompiledNetwork.OpKind.Resistor: nBins.Fill(op.Value); dBins.Fill(Complex.One); break;
-                        case CompiledNetwork.OpKind.Matched:
-                            cache.Medium(grid, network.Media[op.Medium]).Zc.AsSpan(0, bins).CopyTo(n);
-                            dBins.Fill(Complex.One);
-                            break;
-                        default:
-                            nBins.Fill(op.Value);
-                            for (int k = 0; k < bins; k++) d[k] = 1 + S(k) * op.Value * op.Value2;
-                            break;
-                    }
-                    break;
-                case CompiledNetwork.OpKind.ShuntC:
-                    n = stackN[top]; d = stackD[top];
-                    for (int k = 0; k < bins; k++) d[k] += ComplexMath.Multiply(S(k) * op.Value, n[k]);
-                    break;
-                case CompiledNetwork.OpKind.ShuntR:
-                    n = stackN[top]; d = stackD[top];
-                    for (int k = 0; k < bins; k++) d[k] += n[k] / op.Value;
-                    break;
-                case CompiledNetwork.OpKind.SeriesL:
-                    n = stackN[top]; d = stackD[top];
-                    for (int k = 0; k < bins; k++) n[k] += ComplexMath.Multiply(S(k) * op.Value, d[k]);
-                    break;
-                case CompiledNetwork.OpKind.SeriesR:
-                    n = stackN[top]; d = stackD[top];
-                    for (int k = 0; k < bins; k++) n[k] += op.Value * d[k];
-                    break;
-                case CompiledNetwork.OpKind.Segment:
-                {
-                    n = stackN[top]; d = stackD[top];
-                    if (network.Media[op.Medium].IsLossless)
-                    {
-                        ApplyLosslessSegment(n, d, grid, network.Media[op.Medium], op.Value);
-                        break;
-                    }
-                    // The segment carries its medium's bins: no second look-up.
-                    var segment = cache.Segment(grid, network.Media[op.Medium], op.Value);
-                    var medium = segment.Medium;
-                    Complex[] a = segment.A, b = segment.B, c = segment.C;
-                    int k0 = 0;
-                    for (; k0 < segment.SmallBins; k0++) Apply(n, d, k0, a[k0], b[k0], c[k0]);
-                    Complex[] e = segment.E, zc = medium.Zc, inverseZc = medium.InverseZc;
-                    for (int k = k0; k < bins; k++) ApplyTravellingWaves(n, d, k, e[k], zc[k], inverseZc[k]);
-                    break;
-                }
-                case CompiledNetwork.OpKind.Junction:
-                    for (int br = 1; br < op.Count; br++)
-                    {
-                        Complex[] n1 = stackN[top - 1], d1 = stackD[top - 1], n2 = stackN[top], d2 = stackD[top];
-                        top--;
-                        for (int k = 0; k < bins; k++)
-                        {
-                            Complex nn = ComplexMath.Multiply(n1[k], n2[k]);
-                            Complex dd = ComplexMath.Multiply(d1[k], n2[k]) + ComplexMath.Multiply(d2[k], n1[k]);
-                            Normalise(ref nn, ref dd);
-                            n1[k] = nn;
-                            d1[k] = dd;
-                        }
-                        SweepBuffers<Complex>.Return(n2);
-                        SweepBuffers<Complex>.Return(d2);
-                    }
-                    break;
-            }
-            record?.Record(index, top, stackN[top], stackD[top]);
-        }
-        return (stackN[0], stackD[0]);
+        using var sweep = new BinSweep(network, cache, grid, resumeFrom);
+        if (record is null) sweep.Run(0, grid.BinCount);
+        else sweep.RunRecording(record);
+        return (sweep.N, sweep.D);
     }
 
     /// <summary>
-    /// Applies a lossless segment's ABCD matrix (scaled by e^(−γl), see <see cref="SegmentMatrix"/>) to every bin's load
-    /// pair. There γ = s/v, so e^(−2γl) = e^(−2σl/v)·e^(−j2kΔω·l/v) turns by a fixed phasor per bin: one multiplication per
+    /// Applies a lossless segment's ABCD matrix (scaled by e^(−γl), see <see cref="SegmentMatrix"/>) to the load pairs of
+    /// bins [<paramref name="from"/>, <paramref name="to"/>). There γ = s/v, so e^(−2γl) = e^(−2σl/v)·e^(−j2kΔω·l/v) turns by a fixed phasor per bin: one multiplication per
     /// bin instead of a complex exponential, refreshed exactly every 256 bins (and after a small-argument bin) so rounding
     /// cannot accumulate (≲ 256 ulp); Z_c is real, so C = sinh/Z_c is a scaling. Computed in place rather than kept in
-    /// <see cref="SweepCache"/>: reading three stored complex arrays per bin cost more than this arithmetic.
+    /// <see cref="SweepCache"/>: reading three stored complex arrays per bin cost more than this arithmetic. A range
+    /// that starts at a multiple of 256 computes the bits of the whole sweep's pass (its first bin is an exact refresh
+    /// either way).
     /// </summary>
-    private static void ApplyLosslessSegment(Complex[] n, Complex[] d, SweepCache.Grid grid, CableMedium medium, double lengthMeters)
+    internal static void ApplyLosslessSegment(Complex[] n, Complex[] d, SweepCache.Grid grid, CableMedium medium, double lengthMeters,
+        int from, int to)
     {
         double v = medium.VelocityMetersPerSecond;
         Complex step = Complex.FromPolarCoordinates(1, -grid.DOmega * (2 * lengthMeters / v));
@@ -203,7 +119,7 @@ internal sealed class NetworkEvaluator
         int previous = -2;
         // |γl| grows with the bin, so once a bin is past the small-argument bound every later one is too.
         bool small = true;
-        for (int k = 0; k < grid.BinCount; k++)
+        for (int k = from; k < to; k++)
         {
             var s = new Complex(grid.Sigma, k * grid.DOmega);
             if (small)
@@ -258,7 +174,7 @@ internal sealed class NetworkEvaluator
 
     /// <summary>(N, D) ← (A·N + B·D, C·N + A·D) at bin <paramref name="k"/>, then <see cref="Normalise"/>.</summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    private static void Apply(Complex[] n, Complex[] d, int k, Complex a, Complex b, Complex c)
+    internal static void Apply(Complex[] n, Complex[] d, int k, Complex a, Complex b, Complex c)
     {
         Complex n0 = n[k], d0 = d[k];
         var newN = ComplexMath.Multiply(a, n0) + ComplexMath.Multiply(b, d0);

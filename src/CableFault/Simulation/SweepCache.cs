@@ -101,13 +101,17 @@ internal sealed class SweepCache
         var key = new EdgeKey(grid, shape, riseSeconds, settlingFraction, settlingSeconds);
         if (_edges.TryGetValue(key, out var cached)) return cached;
         var edge = new Complex[grid.BinCount];
-        for (int k = 0; k < grid.BinCount; k++)
+        // A complex exponential per bin, each on its own: the halves may run side by side (BinSplitting).
+        BinSplitting.ForHalves(grid.BinCount, (from, to) =>
         {
-            var s = new Complex(grid.Sigma, k * grid.DOmega);
-            edge[k] = StimulusSpectrum.Evaluate(shape, riseSeconds, s);
-            // Only a settling step multiplies: an edge that settles at once keeps exactly its old numbers.
-            if (settlingFraction != 0) edge[k] *= StimulusSpectrum.Settling(settlingFraction, settlingSeconds, s);
-        }
+            for (int k = from; k < to; k++)
+            {
+                var s = new Complex(grid.Sigma, k * grid.DOmega);
+                edge[k] = StimulusSpectrum.Evaluate(shape, riseSeconds, s);
+                // Only a settling step multiplies: an edge that settles at once keeps exactly its old numbers.
+                if (settlingFraction != 0) edge[k] *= StimulusSpectrum.Settling(settlingFraction, settlingSeconds, s);
+            }
+        });
         Trim(grid.BinCount);
         return _edges.GetOrAdd(key, edge);
     }
