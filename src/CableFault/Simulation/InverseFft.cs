@@ -1,5 +1,7 @@
 using System.Collections.Concurrent;
 using System.Numerics;
+using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
 
 namespace CableFault.Simulation;
 
@@ -122,11 +124,8 @@ internal static class InverseFft
             n = count;
             stride *= r;
         }
-        for (int i = 0; i < half; i++)
-        {
-            x[2 * i] = a[i].Real;
-            x[2 * i + 1] = a[i].Imaginary;
-        }
+        // z_n = x_2n + j·x_(2n+1): the complex numbers' memory is already the samples in order.
+        MemoryMarshal.Cast<Complex, double>(a).CopyTo(x);
         SweepBuffers<Complex>.Return(rentedA);
         SweepBuffers<Complex>.Return(rentedB);
     }
@@ -136,36 +135,40 @@ internal static class InverseFft
 
     private static void Radix2(Span<Complex> x, Span<Complex> y, int count, int stride, Complex[] w)
     {
+        Span<Vector128<double>> xv = Lanes(x), yv = Lanes(y);
         for (int p = 0; p < count; p++)
         {
-            Complex w1 = w[p * stride];
+            var (w1r, w1i) = Duplicated(w[p * stride]);
             int input = stride * p, output = stride * 2 * p;
             for (int q = 0; q < stride; q++)
             {
-                Complex a0 = x[input + q], a1 = x[input + q + stride * count];
-                y[output + q] = a0 + a1;
-                y[output + q + stride] = ComplexMath.Multiply(a0 - a1, w1);
+                Vector128<double> a0 = xv[input + q], a1 = xv[input + q + stride * count];
+                yv[output + q] = a0 + a1;
+                yv[output + q + stride] = ComplexMath.MultiplyBy(a0 - a1, w1r, w1i);
             }
         }
     }
 
     private static void Radix4(Span<Complex> x, Span<Complex> y, int count, int stride, Complex[] w)
     {
+        Span<Vector128<double>> xv = Lanes(x), yv = Lanes(y);
         int jump = stride * count;
         for (int p = 0; p < count; p++)
         {
-            Complex w1 = w[p * stride], w2 = w[2 * p * stride], w3 = w[3 * p * stride];
+            var (w1r, w1i) = Duplicated(w[p * stride]);
+            var (w2r, w2i) = Duplicated(w[2 * p * stride]);
+            var (w3r, w3i) = Duplicated(w[3 * p * stride]);
             int input = stride * p, output = stride * 4 * p;
             for (int q = 0; q < stride; q++)
             {
                 int i = input + q;
-                Complex a0 = x[i], a1 = x[i + jump], a2 = x[i + 2 * jump], a3 = x[i + 3 * jump];
-                Complex s02 = a0 + a2, d02 = a0 - a2, s13 = a1 + a3, d13 = TimesI(a1 - a3);
+                Vector128<double> a0 = xv[i], a1 = xv[i + jump], a2 = xv[i + 2 * jump], a3 = xv[i + 3 * jump];
+                Vector128<double> s02 = a0 + a2, d02 = a0 - a2, s13 = a1 + a3, d13 = ComplexMath.TimesI(a1 - a3);
                 int o = output + q;
-                y[o] = s02 + s13;
-                y[o + stride] = ComplexMath.Multiply(d02 + d13, w1);
-                y[o + 2 * stride] = ComplexMath.Multiply(s02 - s13, w2);
-                y[o + 3 * stride] = ComplexMath.Multiply(d02 - d13, w3);
+                yv[o] = s02 + s13;
+                yv[o + stride] = ComplexMath.MultiplyBy(d02 + d13, w1r, w1i);
+                yv[o + 2 * stride] = ComplexMath.MultiplyBy(s02 - s13, w2r, w2i);
+                yv[o + 3 * stride] = ComplexMath.MultiplyBy(d02 - d13, w3r, w3i);
             }
         }
     }
@@ -175,20 +178,23 @@ internal static class InverseFft
 
     private static void Radix3(Span<Complex> x, Span<Complex> y, int count, int stride, Complex[] w)
     {
+        Span<Vector128<double>> xv = Lanes(x), yv = Lanes(y);
         int jump = stride * count;
+        Vector128<double> sin60 = Vector128.Create(Sin60), halfOf = Vector128.Create(0.5);
         for (int p = 0; p < count; p++)
         {
-            Complex w1 = w[p * stride], w2 = w[2 * p * stride];
+            var (w1r, w1i) = Duplicated(w[p * stride]);
+            var (w2r, w2i) = Duplicated(w[2 * p * stride]);
             int input = stride * p, output = stride * 3 * p;
             for (int q = 0; q < stride; q++)
             {
                 int i = input + q;
-                Complex a0 = x[i], a1 = x[i + jump], a2 = x[i + 2 * jump];
-                Complex sum = a1 + a2, mid = a0 - 0.5 * sum, turn = TimesI(Sin60 * (a1 - a2));
+                Vector128<double> a0 = xv[i], a1 = xv[i + jump], a2 = xv[i + 2 * jump];
+                Vector128<double> sum = a1 + a2, mid = a0 - halfOf * sum, turn = ComplexMath.TimesI(sin60 * (a1 - a2));
                 int o = output + q;
-                y[o] = a0 + sum;
-                y[o + stride] = ComplexMath.Multiply(mid + turn, w1);
-                y[o + 2 * stride] = ComplexMath.Multiply(mid - turn, w2);
+                yv[o] = a0 + sum;
+                yv[o + stride] = ComplexMath.MultiplyBy(mid + turn, w1r, w1i);
+                yv[o + 2 * stride] = ComplexMath.MultiplyBy(mid - turn, w2r, w2i);
             }
         }
     }
@@ -199,28 +205,40 @@ internal static class InverseFft
 
     private static void Radix5(Span<Complex> x, Span<Complex> y, int count, int stride, Complex[] w)
     {
+        Span<Vector128<double>> xv = Lanes(x), yv = Lanes(y);
         int jump = stride * count;
-        double c1 = C1, c2 = C2, s1 = S1, s2 = S2;
+        Vector128<double> c1 = Vector128.Create(C1), c2 = Vector128.Create(C2), s1 = Vector128.Create(S1), s2 = Vector128.Create(S2);
         for (int p = 0; p < count; p++)
         {
-            Complex w1 = w[p * stride], w2 = w[2 * p * stride], w3 = w[3 * p * stride], w4 = w[4 * p * stride];
+            var (w1r, w1i) = Duplicated(w[p * stride]);
+            var (w2r, w2i) = Duplicated(w[2 * p * stride]);
+            var (w3r, w3i) = Duplicated(w[3 * p * stride]);
+            var (w4r, w4i) = Duplicated(w[4 * p * stride]);
             int input = stride * p, output = stride * 5 * p;
             for (int q = 0; q < stride; q++)
             {
                 int i = input + q;
-                Complex a0 = x[i], a1 = x[i + jump], a2 = x[i + 2 * jump], a3 = x[i + 3 * jump], a4 = x[i + 4 * jump];
-                Complex t1 = a1 + a4, t2 = a2 + a3, t3 = a1 - a4, t4 = a2 - a3;
-                Complex r1 = a0 + c1 * t1 + c2 * t2, r2 = a0 + c2 * t1 + c1 * t2;
-                Complex i1 = TimesI(s1 * t3 + s2 * t4), i2 = TimesI(s2 * t3 - s1 * t4);
+                Vector128<double> a0 = xv[i], a1 = xv[i + jump], a2 = xv[i + 2 * jump], a3 = xv[i + 3 * jump], a4 = xv[i + 4 * jump];
+                Vector128<double> t1 = a1 + a4, t2 = a2 + a3, t3 = a1 - a4, t4 = a2 - a3;
+                Vector128<double> r1 = a0 + c1 * t1 + c2 * t2, r2 = a0 + c2 * t1 + c1 * t2;
+                Vector128<double> i1 = ComplexMath.TimesI(s1 * t3 + s2 * t4), i2 = ComplexMath.TimesI(s2 * t3 - s1 * t4);
                 int o = output + q;
-                y[o] = a0 + t1 + t2;
-                y[o + stride] = ComplexMath.Multiply(r1 + i1, w1);
-                y[o + 2 * stride] = ComplexMath.Multiply(r2 + i2, w2);
-                y[o + 3 * stride] = ComplexMath.Multiply(r2 - i2, w3);
-                y[o + 4 * stride] = ComplexMath.Multiply(r1 - i1, w4);
+                yv[o] = a0 + t1 + t2;
+                yv[o + stride] = ComplexMath.MultiplyBy(r1 + i1, w1r, w1i);
+                yv[o + 2 * stride] = ComplexMath.MultiplyBy(r2 + i2, w2r, w2i);
+                yv[o + 3 * stride] = ComplexMath.MultiplyBy(r2 - i2, w3r, w3i);
+                yv[o + 4 * stride] = ComplexMath.MultiplyBy(r1 - i1, w4r, w4i);
             }
         }
     }
+
+    /// <summary>The complex numbers as [re, im] vectors (the same memory; see ComplexMath): each butterfly's lanes see the
+    /// scalar formula's operations in its order, so the transform's bits do not change.</summary>
+    private static Span<Vector128<double>> Lanes(Span<Complex> values) => MemoryMarshal.Cast<Complex, Vector128<double>>(values);
+
+    /// <summary>A twiddle factor as [w_r, w_r] and [w_i, w_i], for <see cref="ComplexMath.MultiplyBy"/>.</summary>
+    private static (Vector128<double> Real, Vector128<double> Imaginary) Duplicated(Complex w) =>
+        (Vector128.Create(w.Real), Vector128.Create(w.Imaginary));
 
     /// <summary>Any radix by its plain DFT: only for a prime factor above 5, which <see cref="FastLength"/> never gives.</summary>
     private static void RadixAny(Span<Complex> x, Span<Complex> y, int r, int count, int stride, Complex[] w)

@@ -1,5 +1,7 @@
 using System.Numerics;
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
 using CableFault.Cables;
 
 namespace CableFault.Simulation;
@@ -115,40 +117,46 @@ internal sealed class NetworkEvaluator
         double v = medium.VelocityMetersPerSecond;
         Complex step = Complex.FromPolarCoordinates(1, -grid.DOmega * (2 * lengthMeters / v));
         double z = medium.ImpedanceOhms, y = 1 / z;
-        Complex e = Complex.One;
-        int previous = -2;
-        // |γl| grows with the bin, so once a bin is past the small-argument bound every later one is too.
-        bool small = true;
-        for (int k = from; k < to; k++)
+        int k = from;
+        // |γl| grows with the bin, so the small-argument bins come first, each from the series.
+        for (; k < to; k++)
         {
             var s = new Complex(grid.Sigma, k * grid.DOmega);
-            if (small)
+            // The same operations as Propagation's γ = s/v times l.
+            Complex gammaLength = s / v * lengthMeters;
+            if (gammaLength.Magnitude >= SmallArgument) break;
+            var (a, b, c) = SegmentMatrix(gammaLength, z, s * medium.InductanceHenriesPerMeter * lengthMeters,
+                s * medium.CapacitanceFaradsPerMeter * lengthMeters);
+            Apply(n, d, k, a, b, c);
+        }
+        if (k >= to) return;
+        if (to > n.Length || to > d.Length) throw new ArgumentOutOfRangeException(nameof(to), to, "Past the pairs' arrays.");
+        // Each [re, im] pair is one vector; every lane sees the scalar formula's operations in its order (ComplexMath).
+        // Unchecked element references: the range was checked once above.
+        ref var nv = ref Unsafe.As<Complex, Vector128<double>>(ref MemoryMarshal.GetArrayDataReference(n));
+        ref var dv = ref Unsafe.As<Complex, Vector128<double>>(ref MemoryMarshal.GetArrayDataReference(d));
+        Vector128<double> stepReal = Vector128.Create(step.Real), stepImaginary = Vector128.Create(step.Imaginary);
+        Vector128<double> zv = Vector128.Create(z), yv = Vector128.Create(y), half = Vector128.Create(0.5);
+        while (k < to)
+        {
+            // A block up to the next multiple of 256 bins, started from the exact exponential.
+            int blockEnd = Math.Min(to, (k | 255) + 1);
+            var e = ComplexMath.AsVector(Complex.Exp(-2 * (new Complex(grid.Sigma, k * grid.DOmega) / v * lengthMeters)));
+            for (; k < blockEnd; k++)
             {
-                // The same operations as Propagation's γ = s/v times l.
-                Complex gammaLength = s / v * lengthMeters;
-                small = gammaLength.Magnitude < SmallArgument;
-                if (small)
-                {
-                    var (a, b, c) = SegmentMatrix(gammaLength, z, s * medium.InductanceHenriesPerMeter * lengthMeters,
-                        s * medium.CapacitanceFaradsPerMeter * lengthMeters);
-                    Apply(n, d, k, a, b, c);
-                    continue;
-                }
+                // With A = (1 + e)/2, B = Z_c(1 − e)/2, C = (1 − e)/(2Z_c) the matrix splits into the two travelling
+                // waves: P = (N + Z_c·D)/2 passes unchanged and M = (N − Z_c·D)/2 comes back turned by e, so
+                // N′ = P + e·M and D′ = (P − e·M)/Z_c: one complex product per bin instead of four.
+                ref var nk = ref Unsafe.Add(ref nv, k);
+                ref var dk = ref Unsafe.Add(ref dv, k);
+                Vector128<double> n0 = nk, zd = dk * zv, p = (n0 + zd) * half, m = (n0 - zd) * half;
+                var em = ComplexMath.Multiply(e, m);
+                Vector128<double> newN = p + em, newD = (p - em) * yv;
+                Normalise(ref newN, ref newD);
+                nk = newN;
+                dk = newD;
+                e = ComplexMath.MultiplyBy(e, stepReal, stepImaginary);
             }
-            e = (k & 255) == 0 || previous != k - 1 ? Complex.Exp(-2 * (s / v * lengthMeters)) : ComplexMath.Multiply(e, step);
-            previous = k;
-            // With A = (1 + e)/2, B = Z_c(1 − e)/2, C = (1 − e)/(2Z_c) the matrix splits into the two travelling waves:
-            // P = (N + Z_c·D)/2 passes unchanged and M = (N − Z_c·D)/2 comes back turned by e, so
-            // N′ = P + e·M and D′ = (P − e·M)/Z_c: one complex product per bin instead of four.
-            Complex n0 = n[k], d0 = d[k];
-            double pr = (n0.Real + z * d0.Real) * 0.5, pi = (n0.Imaginary + z * d0.Imaginary) * 0.5;
-            double mr = (n0.Real - z * d0.Real) * 0.5, mi = (n0.Imaginary - z * d0.Imaginary) * 0.5;
-            double emr = e.Real * mr - e.Imaginary * mi, emi = e.Imaginary * mr + e.Real * mi;
-            var newN = new Complex(pr + emr, pi + emi);
-            var newD = new Complex((pr - emr) * y, (pi - emi) * y);
-            Normalise(ref newN, ref newD);
-            n[k] = newN;
-            d[k] = newD;
         }
     }
 
@@ -237,6 +245,23 @@ internal sealed class NetworkEvaluator
     /// <remarks>The larger of the two sizes by a plain comparison, not Math.Max: its IEEE 754-2019 handling of NaN and
     /// signed zeros compiled to a third of the lossless segment's time, and the sizes here are sums of magnitudes
     /// (never −0). They differ only when a size is NaN, where the pair is NaN and the result is NaN either way.</remarks>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    internal static void Normalise(ref Vector128<double> n, ref Vector128<double> d)
+    {
+        Vector128<double> absoluteN = Vector128.Abs(n), absoluteD = Vector128.Abs(d);
+        double sizeN = absoluteN.GetElement(0) + absoluteN.GetElement(1), sizeD = absoluteD.GetElement(0) + absoluteD.GetElement(1);
+        double scale = sizeN > sizeD ? sizeN : sizeD;
+        // Within the range nothing changes; anything else (tiny, huge, zero, infinite, NaN) takes the full test.
+        if (scale <= 1e100 && scale >= 1e-100) return;
+        if (scale > 0 && double.IsFinite(scale) && (scale > 1e100 || scale < 1e-100))
+        {
+            var divisor = Vector128.Create(scale);
+            n /= divisor;
+            d /= divisor;
+        }
+    }
+
+    /// <inheritdoc cref="Normalise(ref Vector128{double}, ref Vector128{double})"/>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     internal static void Normalise(ref Complex n, ref Complex d)
     {
