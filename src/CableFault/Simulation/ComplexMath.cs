@@ -52,6 +52,23 @@ internal static class ComplexMath
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     internal static Vector128<double> TimesI(Vector128<double> z) => Vector128.Xor(Swap(z), Vector128.Create(-0.0, 0.0));
 
+    /// <summary>a/b on [re, im] vectors, bit for bit <see cref="Divide(Complex, Complex)"/>: the same ratio and
+    /// denominator, and each lane's numerator from the same products and sum, divided by the same denominator.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    internal static Vector128<double> Divide(Vector128<double> a, Vector128<double> b)
+    {
+        double br = b.GetElement(0), bi = b.GetElement(1);
+        if (Math.Abs(bi) < Math.Abs(br))
+        {
+            double ratio = bi / br;
+            // [a_r + a_i·ratio, a_i − a_r·ratio]
+            return (a + Vector128.Xor(Swap(a) * Vector128.Create(ratio), Vector128.Create(0.0, -0.0))) / Vector128.Create(br + bi * ratio);
+        }
+        double inverse = br / bi;
+        // [a_i + a_r·inverse, −a_r + a_i·inverse]
+        return (Vector128.Xor(Swap(a), Vector128.Create(0.0, -0.0)) + a * Vector128.Create(inverse)) / Vector128.Create(bi + br * inverse);
+    }
+
     /// <summary>[x₀ − y₀, x₁ + y₁]: y₀'s sign flipped, then added (no instruction-set test, which the ahead-of-time
     /// build would make at run time inside the loops).</summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]

@@ -5,7 +5,7 @@ using CableFault.Simulation;
 namespace CableFault.Tests.Physics;
 
 /// <summary>
-/// The sweep's lossless segments and the inverse FFT's butterflies work on [re, im] vectors and are kept bit for bit what
+/// The sweep's lossless segments, the spectrum and the inverse FFT's butterflies work on [re, im] vectors and are kept bit for bit what
 /// the scalar complex arithmetic gives (so a fit's path does not move with the instruction set). Checked on random
 /// operands over many magnitudes and signs, with zeros, signed zeros, infinities and NaN among them.
 /// </summary>
@@ -42,6 +42,24 @@ public class ComplexVectorTests
             Assert.True(SameBits(a * b, ComplexMath.MultiplyBy(ComplexMath.AsVector(a), Vector128.Create(b.Real), Vector128.Create(b.Imaginary))),
                 $"{a}·{b} against the library's operator");
         }
+    }
+
+    /// <summary>Smith's quotient on vectors against the scalar one, on both of its branches (|b_i| below and not below
+    /// |b_r|), divisors with a zero part included.</summary>
+    [Fact]
+    public void QuotientIsTheScalarQuotientBitForBit()
+    {
+        var operands = Operands().ToArray();
+        var random = new Random(5);
+        int branches = 0;
+        foreach (var a in operands)
+        {
+            var b = operands[random.Next(operands.Length)];
+            if (Math.Abs(b.Imaginary) < Math.Abs(b.Real)) branches |= 1;
+            else branches |= 2;
+            Assert.True(SameBits(ComplexMath.Divide(a, b), ComplexMath.Divide(ComplexMath.AsVector(a), ComplexMath.AsVector(b))), $"{a}/{b}");
+        }
+        Assert.Equal(3, branches);
     }
 
     [Fact]
