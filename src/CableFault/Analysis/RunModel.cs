@@ -239,6 +239,21 @@ internal sealed class RunModel
     /// <summary>The samples of a model the simulator cannot run (see <see cref="Simulate"/>), V: far beyond any trace.</summary>
     private const double UnreachableVolts = 1e6;
 
+    /// <summary>Largest internal transform a fit's model may need, as a multiple of the one its window needs with the
+    /// edge at time zero and the measured rise. A fit moves the edge by a few rise times and its rise by tens of per
+    /// cent, which changes the length by well under two; a step that needs sixteen times as much has left the trace.</summary>
+    internal const long MaximumTransformGrowth = 16;
+
+    private static double[] Unreachable(FitData data)
+    {
+        var samples = new double[data.Samples.Length];
+        Array.Fill(samples, UnreachableVolts);
+        return samples;
+    }
+
+    /// <summary>The settings of this run with the edge at time zero and the measured (reference) rise.</summary>
+    private InstrumentSettings ReferenceSettings(FitData data) => Settings(data, Context.ReferenceRiseSeconds, 0);
+
     /// <summary>
     /// The model's samples at the fit data's sample times. The data were low-passed by a Gaussian of σ_g, which for a
     /// Gaussian edge is the same as an edge of σ = √(σ_r² + σ_g²): the filter is folded into the stimulus exactly.
@@ -249,19 +264,21 @@ internal sealed class RunModel
     {
         Interlocked.Increment(ref SimulationCount);
         double[] samples;
+        var settings = Settings(data);
+        // A trial step far off (the edge moved far from the window, or its rise near a bound) can ask for an internal
+        // transform many times the one the window needs at the measured rise: minutes and gigabytes for one run, or
+        // beyond the simulator's limit. Such a model is no reading of the trace: a level far from any trace makes the fit
+        // reject the step, as it rejects any step that fits worse.
+        if (ForwardModel.TransformLength(settings) > MaximumTransformGrowth * ForwardModel.TransformLength(ReferenceSettings(data)))
+            return Unreachable(data);
         try
         {
-            samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), Settings(data), data.Cache,
+            samples = ForwardModel.SimulateSamples(new CompiledNetwork(ToNetwork()), settings, data.Cache,
                 ForwardModel.FitMaximumUndamping, resumeFrom);
         }
         catch (InputException)
         {
-            // A trial step far off (the edge moved far before the window with its rise near the bound) can ask for
-            // an internal transform beyond the simulator's limit. That model is no reading of the trace: a level far
-            // from any trace makes the fit reject the step, as it rejects any step that fits worse.
-            samples = new double[data.Samples.Length];
-            Array.Fill(samples, UnreachableVolts);
-            return samples;
+            return Unreachable(data);
         }
         if (OffsetVolts != 0)
             for (int i = 0; i < samples.Length; i++) samples[i] += OffsetVolts;
@@ -274,9 +291,11 @@ internal sealed class RunModel
     internal SweepSnapshots Snapshot(FitData data) =>
         ForwardModel.Snapshot(new CompiledNetwork(ToNetwork()), Settings(data), data.Cache, ForwardModel.FitMaximumUndamping);
 
-    private InstrumentSettings Settings(FitData data)
+    private InstrumentSettings Settings(FitData data) => Settings(data, RiseSeconds, TimeOffsetSeconds);
+
+    private InstrumentSettings Settings(FitData data, double riseSeconds, double timeOffsetSeconds)
     {
-        double sigmaRise = RiseSeconds / 2.5631031310892007;
+        double sigmaRise = riseSeconds / 2.5631031310892007;
         double sigma = Math.Sqrt(sigmaRise * sigmaRise + data.FilterSigmaSeconds * data.FilterSigmaSeconds);
         return new InstrumentSettings
         {
@@ -288,7 +307,7 @@ internal sealed class RunModel
             SampleCount = data.Samples.Length,
             // Negative when the data start after the incident edge (a window cut from the middle of the record): the
             // forward model then starts its samples that long after the edge.
-            PreTriggerSeconds = TimeOffsetSeconds - data.StartTimeSeconds,
+            PreTriggerSeconds = timeOffsetSeconds - data.StartTimeSeconds,
             SettlingFraction = Context.SettlingFraction,
             SettlingTimeConstantSeconds = Context.SettlingSeconds,
         };

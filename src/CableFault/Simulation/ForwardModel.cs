@@ -221,19 +221,10 @@ public static class ForwardModel
     private static (int Oversample, double Dt, int Shift, double EdgeCentre, int M, double Sigma, double DOmega) PlanContour(
         InstrumentSettings settings, double maximumUndamping)
     {
-        double rise = settings.RiseTimeSeconds;
-        int oversample = (int)Math.Ceiling(settings.SampleIntervalSeconds / StimulusSpectrum.MaximumInternalIntervalSeconds(settings.EdgeShape, rise) - 1e-9);
-        oversample = Math.Max(1, oversample);
-        double dt = settings.SampleIntervalSeconds / oversample;
-
-        // Put the edge centre far enough after internal t = 0 that its leading tail is negligible.
-        double leadIn = StimulusSpectrum.LeadInSeconds(settings.EdgeShape, rise);
-        int shift = (int)Math.Max(0, Math.Ceiling((leadIn - settings.PreTriggerSeconds) / dt));
+        var (oversample, dt, shift, needed) = PlanGrid(settings);
         double edgeCentre = settings.PreTriggerSeconds + shift * dt;
-        long needed = shift + (long)(settings.SampleCount - 1) * oversample + 1;
         if (!(maximumUndamping > 1)) throw new ArgumentOutOfRangeException(nameof(maximumUndamping), maximumUndamping, "The undamping cap must exceed 1.");
-        // The shortest fast length that holds the record: the cost of a run grows with the transform's bins.
-        long fftLength = needed > 1L << 27 ? needed : InverseFft.FastLength(needed);
+        long fftLength = FastLengthFor(needed);
         if (fftLength > (1L << 27))
             throw new InputException($"simulate settings: the record needs an internal FFT of {fftLength} points, over the {1L << 27} limit; shorten the record (--duration-ns, --samples) or lengthen --rise-time-ns");
         int m = (int)fftLength;
@@ -243,8 +234,32 @@ public static class ForwardModel
         // A fit caps the growth (see FitMaximumUndamping).
         double recordSpan = (needed - 1) * dt;
         double sigma = Math.Min(-2 * Math.Log(BalancedError) / (period + recordSpan), Math.Log(maximumUndamping) / recordSpan);
-        return (oversample, dt, shift, edgeCentre, m, sigma, 2 * Math.PI / period);
+        return (oversample, dt, (int)shift, edgeCentre, m, sigma, 2 * Math.PI / period);
     }
+
+    /// <summary>The internal grid of a simulation: oversampling of the record, internal interval, the edge's shift into
+    /// the transform and the internal samples the record needs.</summary>
+    private static (int Oversample, double Dt, long Shift, long Needed) PlanGrid(InstrumentSettings settings)
+    {
+        double rise = settings.RiseTimeSeconds;
+        double oversampling = Math.Ceiling(settings.SampleIntervalSeconds / StimulusSpectrum.MaximumInternalIntervalSeconds(settings.EdgeShape, rise) - 1e-9);
+        // Clamped before the conversion: an absurd rise (a fit's far trial step) must come out as a huge length, not wrap.
+        int oversample = (int)Math.Clamp(oversampling, 1, 1 << 28);
+        double dt = settings.SampleIntervalSeconds / oversample;
+        // Put the edge centre far enough after internal t = 0 that its leading tail is negligible.
+        double leadIn = StimulusSpectrum.LeadInSeconds(settings.EdgeShape, rise);
+        long shift = (long)Math.Clamp(Math.Ceiling((leadIn - settings.PreTriggerSeconds) / dt), 0, 1L << 40);
+        long needed = shift + (long)(settings.SampleCount - 1) * oversample + 1;
+        return (oversample, dt, shift, needed);
+    }
+
+    /// <summary>The shortest fast length that holds <paramref name="needed"/> samples (the cost of a run grows with the
+    /// transform's bins); lengths beyond the simulator's limit are returned as they are.</summary>
+    private static long FastLengthFor(long needed) => needed > 1L << 27 ? needed : InverseFft.FastLength(needed);
+
+    /// <summary>The internal transform length a simulation with <paramref name="settings"/> needs: its time and memory
+    /// grow with it.</summary>
+    internal static long TransformLength(InstrumentSettings settings) => FastLengthFor(PlanGrid(settings).Needed);
 
     /// <summary>
     /// The bins before the first negligible one (see <see cref="StimulusSpectrum.IsNegligible"/>), at most

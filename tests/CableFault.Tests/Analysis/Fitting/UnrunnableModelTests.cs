@@ -28,4 +28,27 @@ public class UnrunnableModelTests
         var near = At(0, RiseSeconds).Simulate(data);
         Assert.All(near, v => Assert.InRange(v, -2, 2));
     }
+
+    /// <summary>
+    /// Below the simulator's limit a far step still costs what its transform costs: an edge 30 µs before a 3 µs window
+    /// needs about ten times the window's transform, and a tenth of the rise a further ten (measured: a thin lossy run
+    /// whose loss was being estimated once took two minutes and 24 GB in such steps). A model whose transform is more
+    /// than <see cref="RunModel.MaximumTransformGrowth"/> times the window's at the measured rise is not run; a step of a
+    /// few rise times, or a rise a third smaller, still is.
+    /// </summary>
+    [Fact]
+    public void AModelFarOutsideItsWindowIsNotRun()
+    {
+        var trace = Simulate(Run(Segment(200), RunEnd.Short), sampleCount: 24_000);
+        var data = FitData.Prepare(trace, -5e-9, 2_900e-9, RiseSeconds, QuietNoiseVolts, double.PositiveInfinity);
+        var context = new RunModelContext(VelocityFactor, ImpedanceOhms, 50, null, RiseSeconds, 0.5);
+        RunModel At(double timeOffsetSeconds, double riseSeconds) => new(context, 0.5, timeOffsetSeconds, riseSeconds,
+            [new RunModelEvent(RunModelElement.Short, 2_000e-9, double.NaN)]);
+
+        var far = At(-30e-6, RiseSeconds / 10).Simulate(data);
+        Assert.All(far, v => Assert.True(Math.Abs(v) >= 1e5, $"{v} V"));
+
+        foreach (var (offset, rise) in new[] { (3 * RiseSeconds, RiseSeconds), (0.0, 0.67 * RiseSeconds), (-2 * RiseSeconds, 1.5 * RiseSeconds) })
+            Assert.All(At(offset, rise).Simulate(data), v => Assert.InRange(v, -2, 2));
+    }
 }
