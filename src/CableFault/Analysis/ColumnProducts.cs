@@ -96,6 +96,56 @@ internal static class ColumnProducts
         return (gram, withVector);
     }
 
+    /// <summary>
+    /// Each column's product with each of a few vectors (<c>result[j][v] = columns[j]·vectors[v]</c>), bit for bit as
+    /// <see cref="Dot"/> gives it: one pass over each column for all the vectors, the columns shared among the cores when
+    /// the work is large.
+    /// </summary>
+    internal static double[][] WithVectors(IReadOnlyList<double[]> columns, IReadOnlyList<double[]> vectors)
+    {
+        int q = columns.Count;
+        var others = vectors.ToArray();
+        var result = new double[q][];
+        if (q == 0) return result;
+        int n = columns[0].Length;
+        void Column(int j)
+        {
+            var products = new double[others.Length];
+            // Up to two vectors per pass, their sums kept in registers.
+            for (int v = 0; v < others.Length; v += 2)
+            {
+                if (v + 1 < others.Length) (products[v], products[v + 1]) = Pair(columns[j], others[v], others[v + 1], n);
+                else products[v] = Dot(columns[j], others[v]);
+            }
+            result[j] = products;
+        }
+        if ((long)n * q * others.Length < ParallelMinimumWork)
+            for (int j = 0; j < q; j++) Column(j);
+        else
+            Parallel.For(0, q, Column);
+        return result;
+    }
+
+    /// <summary>a·b and a·c in one pass, each bit for bit <see cref="Dot"/>.</summary>
+    private static (double, double) Pair(double[] a, double[] b, double[] c, int n)
+    {
+        int width = Vector<double>.Count, i = 0;
+        Vector<double> sumB = Vector<double>.Zero, sumC = Vector<double>.Zero;
+        for (; i + width <= n; i += width)
+        {
+            var va = new Vector<double>(a, i);
+            sumB += va * new Vector<double>(b, i);
+            sumC += va * new Vector<double>(c, i);
+        }
+        double totalB = Vector.Dot(sumB, Vector<double>.One), totalC = Vector.Dot(sumC, Vector<double>.One);
+        for (; i < n; i++)
+        {
+            totalB += a[i] * b[i];
+            totalC += a[i] * c[i];
+        }
+        return (totalB, totalC);
+    }
+
     /// <summary>Σ aᵢ·bᵢ, vectorised: lane by lane over the samples in order, then the lanes, then the samples left over.</summary>
     internal static double Dot(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
     {

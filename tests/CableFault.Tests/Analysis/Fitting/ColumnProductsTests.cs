@@ -32,6 +32,22 @@ public sealed class ColumnProductsTests
         }
     }
 
+    /// <summary>Each column's products with a few vectors, taken in one pass (serially for a short set, spread over the
+    /// cores for a long one), must be the plain dot products bit for bit.</summary>
+    [Theory]
+    [InlineData(37, 3, 1)]
+    [InlineData(6_107, 20, 3)]
+    public void ProductsWithVectorsAreThePlainDotProductsBitForBit(int sampleCount, int columnCount, int vectorCount)
+    {
+        var (columns, _) = RandomColumns(sampleCount, columnCount, seed: 3 * sampleCount);
+        var vectors = Enumerable.Range(0, vectorCount).Select(v => RandomColumns(sampleCount, 1, seed: 100 + v).Vector).ToArray();
+
+        var products = ColumnProducts.WithVectors(columns, vectors);
+
+        for (int j = 0; j < columnCount; j++)
+            for (int v = 0; v < vectorCount; v++) Assert.Equal(ColumnProducts.Dot(columns[j], vectors[v]), products[j][v]);
+    }
+
     [Fact]
     public void ProductsAgreeWithAnExactlyRoundedSum()
     {

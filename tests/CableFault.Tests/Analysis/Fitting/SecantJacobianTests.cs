@@ -42,6 +42,43 @@ public sealed class SecantJacobianTests
         Assert.Equal(exact[0], secant.Columns![0]);
     }
 
+    /// <summary>The Gauss–Newton products the secant Jacobian carries through its rank-one updates (J′ᵀJ′ = JᵀJ + c·tᵀ +
+    /// t·cᵀ + (r·r)·t·tᵀ, the exact column's taken afresh) must be the products of its updated columns, taken directly,
+    /// to rounding: 1e-12 of |a|·|b| leaves room for three updates' rounding (each ~1e-15 relative) and still catches a
+    /// missing or doubled term (of order 1). The products with a vector are taken directly every time.</summary>
+    [Fact]
+    public void CarriedProductsAreTheUpdatedColumnsProducts()
+    {
+        var random = new Random(11);
+        var (u, f, columns) = Start(random);
+        var secant = new SecantJacobian(ParameterCount, Free);
+        secant.Reset(u, f, columns);
+        var vector = RandomVector(random);
+        secant.Products(vector);
+        var freeIndices = Enumerable.Range(0, ParameterCount).Where(j => Free[j]).ToArray();
+        for (int step = 0; step < SecantJacobian.MaximumUpdates; step++)
+        {
+            (u, f, var exact) = Step(random, u);
+            secant.Update(u, f, exact);
+            vector = RandomVector(random);
+
+            var (gram, withVector) = secant.Products(vector);
+
+            var direct = ColumnProducts.Compute(freeIndices.Select(j => secant.Columns![j]).ToArray(), vector);
+            for (int a = 0; a < freeIndices.Length; a++)
+            {
+                double sizeA = Math.Sqrt(ColumnProducts.Dot(secant.Columns![freeIndices[a]], secant.Columns[freeIndices[a]]));
+                Assert.Equal(direct.WithVector[a], withVector[a]);
+                for (int b = 0; b <= a; b++)
+                {
+                    double sizeB = Math.Sqrt(ColumnProducts.Dot(secant.Columns[freeIndices[b]], secant.Columns[freeIndices[b]]));
+                    Assert.True(Math.Abs(gram[a][b] - direct.Gram[a][b]) <= 1e-12 * sizeA * sizeB,
+                        $"step {step}, product ({a}, {b}): carried {gram[a][b]}, direct {direct.Gram[a][b]}");
+                }
+            }
+        }
+    }
+
     private static (double[] U, double[] F, double[][] Columns) Start(Random random)
     {
         var u = Enumerable.Range(0, ParameterCount).Select(_ => random.NextDouble()).ToArray();
