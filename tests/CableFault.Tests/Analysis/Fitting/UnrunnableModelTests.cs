@@ -12,20 +12,23 @@ namespace CableFault.Tests.Analysis.Fitting;
 /// </summary>
 public class UnrunnableModelTests
 {
+    /// <summary>A 3 µs window of a 200 m run with a short, unsmoothed (as the refinement's full-resolution look takes
+    /// it: the model's rise is then its own).</summary>
+    private static readonly FitData Data = FitData.Prepare(Simulate(Run(Segment(200), RunEnd.Short), sampleCount: 24_000),
+        -5e-9, 2_900e-9, RiseSeconds, QuietNoiseVolts, double.PositiveInfinity);
+
+    /// <summary>The run's model with its edge at <paramref name="timeOffsetSeconds"/> and of rise <paramref name="riseSeconds"/>.</summary>
+    private static RunModel At(double timeOffsetSeconds, double riseSeconds) =>
+        new(new RunModelContext(VelocityFactor, ImpedanceOhms, 50, null, RiseSeconds, 0.5), 0.5, timeOffsetSeconds, riseSeconds,
+            [new RunModelEvent(RunModelElement.Short, 2_000e-9, double.NaN)]);
+
     [Fact]
     public void AModelBeyondTheSimulatorsLimitGivesSamplesFarFromAnyTrace()
     {
-        var trace = Simulate(Run(Segment(200), RunEnd.Short), sampleCount: 24_000);
-        // Unsmoothed (as the refinement's full-resolution look takes it): the model's rise is then its own.
-        var data = FitData.Prepare(trace, -5e-9, 2_900e-9, RiseSeconds, QuietNoiseVolts, double.PositiveInfinity);
-        var context = new RunModelContext(VelocityFactor, ImpedanceOhms, 50, null, RiseSeconds, 0.5);
-        RunModel At(double timeOffsetSeconds, double riseSeconds) => new(context, 0.5, timeOffsetSeconds, riseSeconds,
-            [new RunModelEvent(RunModelElement.Short, 2_000e-9, double.NaN)]);
-
-        var farOff = At(-5e-3, 7e-12).Simulate(data);
+        var farOff = At(-5e-3, 7e-12).Simulate(Data);
         Assert.All(farOff, v => Assert.True(Math.Abs(v) >= 1e5, $"{v} V"));
         // The same model where the edge is stays within the step's range (it is the run, less its echoes' details).
-        var near = At(0, RiseSeconds).Simulate(data);
+        var near = At(0, RiseSeconds).Simulate(Data);
         Assert.All(near, v => Assert.InRange(v, -2, 2));
     }
 
@@ -39,16 +42,10 @@ public class UnrunnableModelTests
     [Fact]
     public void AModelFarOutsideItsWindowIsNotRun()
     {
-        var trace = Simulate(Run(Segment(200), RunEnd.Short), sampleCount: 24_000);
-        var data = FitData.Prepare(trace, -5e-9, 2_900e-9, RiseSeconds, QuietNoiseVolts, double.PositiveInfinity);
-        var context = new RunModelContext(VelocityFactor, ImpedanceOhms, 50, null, RiseSeconds, 0.5);
-        RunModel At(double timeOffsetSeconds, double riseSeconds) => new(context, 0.5, timeOffsetSeconds, riseSeconds,
-            [new RunModelEvent(RunModelElement.Short, 2_000e-9, double.NaN)]);
-
-        var far = At(-30e-6, RiseSeconds / 10).Simulate(data);
+        var far = At(-30e-6, RiseSeconds / 10).Simulate(Data);
         Assert.All(far, v => Assert.True(Math.Abs(v) >= 1e5, $"{v} V"));
 
         foreach (var (offset, rise) in new[] { (3 * RiseSeconds, RiseSeconds), (0.0, 0.67 * RiseSeconds), (-2 * RiseSeconds, 1.5 * RiseSeconds) })
-            Assert.All(At(offset, rise).Simulate(data), v => Assert.InRange(v, -2, 2));
+            Assert.All(At(offset, rise).Simulate(Data), v => Assert.InRange(v, -2, 2));
     }
 }
