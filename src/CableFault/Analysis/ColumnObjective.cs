@@ -20,11 +20,11 @@ namespace CableFault.Analysis;
 /// <param name="jacobianColumns">∂f/∂x_j at q, one array per parameter, in some parameters x with x_j = q_j·factor_j;
 /// arrays of fixed parameters are not read.</param>
 /// <param name="columnFactors">factor_j: ∂f/∂q_j = (∂f/∂x_j)/factor_j.</param>
-/// <param name="products">The free columns' products JᵀJ and Jᵀr at q (as <see cref="ColumnProducts.Compute"/> gives
-/// them) after <paramref name="jacobianColumns"/> was asked for q, given q and r; null takes them from the columns.</param>
+/// <param name="products">The free columns' products JᵀJ and Jᵀr (as <see cref="ColumnProducts.Compute"/> gives them)
+/// at the point <paramref name="jacobianColumns"/> was last asked for, given r; null takes them from the columns.</param>
 internal sealed class ColumnObjective(double[] observed, double weight, Func<double[], double[]> model,
     Func<double[], double[][]> jacobianColumns, double[] columnFactors,
-    Func<double[], double[], (double[][] Gram, double[] WithVector)>? products = null) : IObjectiveModel
+    Func<double[], (double[][] Gram, double[] WithVector)>? products = null) : IObjectiveModel
 {
     private double[] point = [];
     private bool[] isFixed = [];
@@ -139,7 +139,7 @@ internal sealed class ColumnObjective(double[] observed, double weight, Func<dou
         // spread over the cores, each bit for bit the plain dot product (see ColumnProducts).
         var (gram, withResidual) = products is null
             ? ColumnProducts.Compute(active.Select(j => columns[j]).ToArray(), residual)
-            : products(point, residual);
+            : products(residual);
         for (int a = 0; a < active.Length; a++)
         {
             int j = active[a];

@@ -133,7 +133,7 @@ internal static class ModelFitter
         }
         // The products come from the secant Jacobian, which carries them through its rank-one updates.
         var objective = new ColumnObjective(data.Samples, weight, q => Model(ToU(q)), q => JacobianU(ToU(q)), scale,
-            (_, residual) => secant.Products(residual));
+            secant.Products);
         // The objective is χ²/2 in noise units: stop when its gradient is below 10⁻³ per noise-unit of parameter (what is
         // left to gain is far below one unit of χ²), or when LM can no longer find a step that lowers χ² (its damping then shrinks the step to nothing).
         var minimizer = new LevenbergMarquardtMinimizer(initialMu: 1e-3, gradientTolerance: 1e-3, stepTolerance: 1e-15,

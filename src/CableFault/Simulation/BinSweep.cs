@@ -1,5 +1,4 @@
 using System.Numerics;
-using CableFault.Cables;
 
 namespace CableFault.Simulation;
 

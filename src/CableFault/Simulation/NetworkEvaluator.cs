@@ -165,7 +165,7 @@ internal sealed class NetworkEvaluator
     /// A = (1 + e)/2, B = Z_c(1 − e)/2, C = (1 − e)/(2Z_c) and e = e^(−2γl), the wave P = (N + Z_c·D)/2 passes unchanged and
     /// M = (N − Z_c·D)/2 comes back turned by e, so N′ = P + e·M and D′ = (P − e·M)/Z_c: three complex products per bin
     /// instead of four, with 1/Z_c kept per medium (the entries' C = sinh/Z_c took a division per bin of every segment).
-    /// Then <see cref="Normalise"/>.
+    /// Then <see cref="Normalise(ref Complex, ref Complex)"/>.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     internal static void ApplyTravellingWaves(Complex[] n, Complex[] d, int k, Complex e, Complex zc, Complex inverseZc)
@@ -180,7 +180,7 @@ internal sealed class NetworkEvaluator
         d[k] = newD;
     }
 
-    /// <summary>(N, D) ← (A·N + B·D, C·N + A·D) at bin <paramref name="k"/>, then <see cref="Normalise"/>.</summary>
+    /// <summary>(N, D) ← (A·N + B·D, C·N + A·D) at bin <paramref name="k"/>, then <see cref="Normalise(ref Complex, ref Complex)"/>.</summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     internal static void Apply(Complex[] n, Complex[] d, int k, Complex a, Complex b, Complex c)
     {
