@@ -393,7 +393,7 @@ internal static class ModelSelection
 
         TryResistiveEnd();
         Prune();
-        ExtremePairsToSpots();
+        NarrowPairsToSpots();
         TruncateAtTotalReflection();
         var resolved = CoincidentEvents.Resolve(best, data, variance, effectiveRiseSeconds, ref trials, cancellation);
         if (!ReferenceEquals(resolved, best)) (best, bestBic) = (resolved, Bic(resolved));
@@ -488,14 +488,17 @@ internal static class ModelSelection
             }
         }
 
-        // A narrow pair of boundaries to |ρ| beyond the end threshold and back would be reported as an open and a short in
-        // the middle of the run; later moves can squeeze a section into one. It is tried as the spot it stands for.
-        void ExtremePairsToSpots()
+        // A narrow pair of boundaries on the selected model is tried once more as the spot it may stand for (see
+        // TrySections): a section accepted while the rest of the model was still wrong can outlive the reason it won (a
+        // shunt C bent into a 2 Ω stretch a fifth of a rise long while a series R before it was read as two steps), and one
+        // to |ρ| beyond the end threshold and back would be reported as an open and a short in the middle of the run.
+        // Pairs already tried in this form are skipped by the hypothesis memory.
+        void NarrowPairsToSpots()
         {
             for (int i = 0; i + 1 < best.Model.Events.Count; i++)
             {
                 var m = best.Model;
-                if (m.Events[i].Element != RunModelElement.Boundary || Math.Abs(LocalReflection(m, i)) < EventClassifier.EndReflection) continue;
+                if (m.Events[i].Element != RunModelElement.Boundary) continue;
                 var spots = ReactiveSections.SpotCandidates(m, i, effectiveRiseSeconds);
                 if (spots.Count > 0) TryBest(spots, simpler: true, i);
             }

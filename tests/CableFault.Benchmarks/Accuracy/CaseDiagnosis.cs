@@ -13,7 +13,7 @@ public static class CaseDiagnosis
         foreach (var c in cases)
         {
             var trace = TraceMaker.Make(c);
-            Console.WriteLine(F($"case {c.Index} ({c.Source}, {(c.IsLossy ? "lossy" : "lossless")}): Z0 {c.ImpedanceOhms} Ω, VF {c.VelocityFactor:0.000}, rise {c.RiseSeconds * 1e9:0.###} ns, noise {c.NoiseRmsVolts * 1e3:0.##} mV, u = {c.ResolutionMeters:0.####} m, {c.SampleCount} samples"));
+            Console.WriteLine(F($"case {c.Index} ({c.Source}, {(c.IsLossy ? "lossy" : "lossless")}): Z0 {c.ImpedanceOhms} Ω, VF {c.VelocityFactor:0.000}, rise {c.RiseSeconds * 1e9:0.###} ns, noise {c.NoiseRmsVolts * 1e3:0.##} mV, u = {c.ResolutionMeters:0.####} m, {c.SampleCount} samples of {c.SampleIntervalSeconds * 1e12:0.###} ps, {c.PreTriggerSeconds * 1e9:0.###} ns before the edge, noise seed {c.NoiseSeed}"));
             Console.WriteLine("  " + c.Description);
             foreach (var t in c.Truth)
                 Console.WriteLine(F($"  truth  {t.DistanceMeters,10:0.####} m  {EventKindNames.ToJsonName(t.Kind),-18} {t.Element} (seen {t.SeenSize:0.###})"));
