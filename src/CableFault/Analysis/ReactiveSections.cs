@@ -39,8 +39,8 @@ internal static class ReactiveSections
     /// The model with spots <paramref name="first"/>..<paramref name="last"/> replaced by one section of round trip
     /// <paramref name="tauSeconds"/> centred on them, of the impedance that gives the same area under the reflection as
     /// their summed C or L (see <see cref="SectionImpedance"/>), and the later events moved later by the delay the spots
-    /// took up; null when no section fits (it would start at or before
-    /// the reference plane, or no positive impedance matches).
+    /// took up beyond the section's own (see <see cref="SectionExcessDelaySeconds"/>); null when no section fits (it would
+    /// start at or before the reference plane, or no positive impedance matches).
     /// </summary>
     internal static RunModel? Replace(RunModel m, int first, int last, double tauSeconds)
     {
@@ -54,9 +54,9 @@ internal static class ReactiveSections
         double z1 = SectionImpedance(spots[0].Element, total, z, tauSeconds);
         if (!(z1 > 0) || !double.IsFinite(z1)) return null;
         // Each spot delays what lies beyond it by its transmission's low-frequency group delay, Z·C/2 or L/(2Z) each way
-        // (T = 1/(1 + jωτ)), so the fit placed the later events that much early; a section of the same cable adds no
-        // delay, so they move that much later.
-        double delay = spots.Sum(e => 2 * SpotDelaySeconds(e, z));
+        // (T = 1/(1 + jωτ)), so the fit placed the later events that much early; the section adds only its own excess
+        // (see SectionExcessDelaySeconds), so they move later by the difference.
+        double delay = 2 * (spots.Sum(e => SpotDelaySeconds(e, z)) - SectionExcessDelaySeconds(z1, z, tauSeconds));
         var list = m.Events.Select((e, k) => k > last ? e with { RoundTripSeconds = e.RoundTripSeconds + delay } : e).ToList();
         list.RemoveRange(first, last - first + 1);
         list.InsertRange(first, [new RunModelEvent(RunModelElement.Boundary, t1, z1), new RunModelEvent(RunModelElement.Boundary, t2, z)]);
@@ -105,11 +105,11 @@ internal static class ReactiveSections
     /// <paramref name="maximumSeconds"/> apart and returning to within <see cref="ReturnRelativeTolerance"/> of the
     /// impedance before them, as the one lumped spot of the same reflection area (series L = (τ/2)(Z₁ − Z²/Z₁) for a higher
     /// Z₁, shunt C = (τ/2)(1/Z₁ − Z₁/Z²) for a lower one) at their centre, the later events moved earlier by the delay
-    /// the spot adds. A fit that cannot place a few-rise-time excursion often makes it a narrow pair of extreme
-    /// boundaries (ρ near ±1), which would read as an open or a short in the middle of a run. A pair that does not
-    /// return, overshoots both lines and is at most <paramref name="maximumStepSeconds"/> wide is the spot and a step at one place (a connector
-    /// where two cables meet): the spot of the section's excess reactance at the junction of Z and Z₂,
-    /// L = (τ/2)(Z₁ − Z·Z₂/Z₁) (a short line of Z₁ is series L (τ/2)Z₁ and shunt C (τ/2)/Z₁, and a shunt C at the junction
+    /// the spot adds beyond the section's own (see <see cref="SectionExcessDelaySeconds"/>). A fit that cannot place a
+    /// few-rise-time excursion often makes it a narrow pair of extreme boundaries (ρ near ±1), which would read as an open
+    /// or a short in the middle of a run. A pair that does not return, overshoots both lines and is at most
+    /// <paramref name="maximumStepSeconds"/> wide is the spot and a step at one place (a connector where two cables meet):
+    /// the spot of the section's excess reactance at the junction of Z and Z₂, L = (τ/2)(Z₁ − Z·Z₂/Z₁) (a short line of Z₁ is series L (τ/2)Z₁ and shunt C (τ/2)/Z₁, and a shunt C at the junction
     /// reflects like a series L of −Z·Z₂·C, to first order in ωτ), followed by the step to Z₂. Null when the pair does not
     /// qualify.
     /// </summary>
@@ -132,7 +132,7 @@ internal static class ReactiveSections
             ? new RunModelEvent(RunModelElement.SeriesInductor, (a.RoundTripSeconds + b.RoundTripSeconds) / 2, tau / 2 * (z1 - z * z / z1))
             : new RunModelEvent(RunModelElement.ShuntCapacitor, (a.RoundTripSeconds + b.RoundTripSeconds) / 2, tau / 2 * (1 / z1 - z1 / (z * z)));
         if (!(spot.Value > 0) || !double.IsFinite(spot.Value)) return null;
-        double delay = 2 * SpotDelaySeconds(spot, z);
+        double delay = 2 * (SpotDelaySeconds(spot, z) - SectionExcessDelaySeconds(z1, z, tau));
         var list = m.Events.Select((e, k) => k > first + 1 ? e with { RoundTripSeconds = e.RoundTripSeconds - delay } : e).ToList();
         list.RemoveRange(first, 2);
         list.Insert(first, spot);
@@ -140,6 +140,18 @@ internal static class ReactiveSections
         // to Z exactly, so a later boundary's impedance is unchanged and the small difference is left to the fit.
         return m.WithEvents(list);
     }
+
+    /// <summary>
+    /// The one-way delay a section of <paramref name="z1"/> Ω and round trip <paramref name="tauSeconds"/> adds, at low
+    /// frequencies, beyond that of the same length of the line of <paramref name="z"/> Ω it sits in, s. Over ℓ = vτ/2 a line
+    /// of Z₁ has series L ℓZ₁/v and shunt C ℓ/(Z₁v); beyond the line of Z that is ΔL = (τ/2)(Z₁ − Z) and
+    /// ΔC = (τ/2)(1/Z₁ − 1/Z), which delay what passes by ΔL/(2Z) + Z·ΔC/2 (see <see cref="SpotDelaySeconds"/>)
+    /// = (τ/4)(Z₁/Z + Z/Z₁ − 2). That is second order in Z₁ − Z: a mild section delays nothing beyond its length, while a
+    /// narrow extreme one (a spot the fit bent into a few-ohm stretch) delays nearly as much as the spot of the same
+    /// reflection area, whose delay (τ/4)|Z/Z₁ − Z₁/Z| exceeds it by (τ/2)(1 − Z₁/Z) for a lower Z₁ and (τ/2)(1 − Z/Z₁)
+    /// for a higher one: never more than the section's own one-way time.
+    /// </summary>
+    internal static double SectionExcessDelaySeconds(double z1, double z, double tauSeconds) => tauSeconds / 4 * (z1 / z + z / z1 - 2);
 
     /// <summary>Boundaries <paramref name="first"/> (to <paramref name="z1"/>) and the next (to <paramref name="z2"/>),
     /// <paramref name="tauSeconds"/> apart on a line of <paramref name="z"/>, as a spot and a step at their centre (see
@@ -192,14 +204,28 @@ internal static class ReactiveSections
                 ? new RunModelEvent(RunModelElement.SeriesInductor, 0, inductance / 2)
                 : new RunModelEvent(RunModelElement.ShuntCapacitor, 0, -inductance / (z * z) / 2);
             // The spots delay what lies beyond by their time constants (see SpotDelaySeconds); the cluster's own spots
-            // already did.
-            double delay = 2 * (2 * SpotDelaySeconds(spot, z) - cluster.Where(e => IsReactive(e.Element)).Sum(e => SpotDelaySeconds(e, z)));
+            // and the excess of its sections (see SectionExcessDelaySeconds) already did.
+            double already = cluster.Where(e => IsReactive(e.Element)).Sum(e => SpotDelaySeconds(e, z)) + SectionsExcessDelaySeconds(m, first, last, z);
+            double delay = 2 * (2 * SpotDelaySeconds(spot, z) - already);
             var list = m.Events.Select((e, k) => k > last ? e with { RoundTripSeconds = e.RoundTripSeconds - delay } : e).ToList();
             list.RemoveRange(first, last - first + 1);
             list.InsertRange(first, [spot with { RoundTripSeconds = cluster[0].RoundTripSeconds }, spot with { RoundTripSeconds = cluster[^1].RoundTripSeconds }]);
             candidates.Add(m.WithEvents(list));
         }
         return candidates;
+    }
+
+    /// <summary>The excess delay (see <see cref="SectionExcessDelaySeconds"/>) of the sections between events
+    /// <paramref name="first"/> and <paramref name="last"/> on a line of <paramref name="z"/> Ω, one way, s.</summary>
+    private static double SectionsExcessDelaySeconds(RunModel m, int first, int last, double z)
+    {
+        double total = 0;
+        for (int k = first; k < last; k++)
+        {
+            double tau = m.Events[k + 1].RoundTripSeconds - m.Events[k].RoundTripSeconds;
+            total += SectionExcessDelaySeconds(RunModelBuilder.ImpedanceBefore(m, k + 1), z, tau);
+        }
+        return total;
     }
 
     /// <summary>

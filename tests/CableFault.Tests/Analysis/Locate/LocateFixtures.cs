@@ -43,8 +43,8 @@ internal static class LocateFixtures
     }
 
     /// <summary>Locates <paramref name="network"/> simulated on a cable of its own rather than the fixture cable: the
-    /// source matched to <paramref name="cable"/>, <paramref name="sampleCount"/> samples six per rise, and the cable's VF
-    /// and Z₀ given to locate.</summary>
+    /// source matched to <paramref name="cable"/>, <paramref name="sampleCount"/> samples six per rise, and the cable's VF,
+    /// Z₀ and loss (when it has any) given to locate.</summary>
     internal static LocateResult LocateOnCable(CableNetwork network, CableMedium cable, double riseSeconds, int sampleCount,
         double noiseVolts, int seed)
     {
@@ -56,6 +56,7 @@ internal static class LocateFixtures
         return Locator.Locate(ForwardModel.Simulate(network, settings), new LocateOptions
         {
             VelocityFactor = cable.VelocityFactor, ImpedanceOhms = cable.ImpedanceOhms, SourceImpedanceOhms = cable.ImpedanceOhms,
+            Loss = cable.Loss.IsLossless ? null : cable.Loss,
         });
     }
 
