@@ -476,17 +476,29 @@ internal static class ModelSelection
                 if (spots.Count > 0 && TryBestJudged(spots, c => narrowPair.Contains(c) || c.ParameterCount < m.ParameterCount, i)) continue;
                 if (!ReactiveSections.IsReactive(m.Events[i].Element)) { i++; continue; }
                 int last = ReactiveSections.ClusterEnd(m, i, effectiveRiseSeconds);
-                double span = m.Events[last].RoundTripSeconds - m.Events[i].RoundTripSeconds;
-                var candidates = new[] { span + effectiveRiseSeconds / 2, span + 1.5 * effectiveRiseSeconds }
-                    .Select(tau => ReactiveSections.Replace(m, i, last, tau)).OfType<RunModel>().ToList();
+                var candidates = SectionReadings(m, i, last);
                 int at = i;
-                acceptIf = f => f.Events.Count > at + 1
-                    && f.Events[at + 1].RoundTripSeconds - f.Events[at].RoundTripSeconds >= ResolutionRefinement.MinimumSectionRiseTimes * effectiveRiseSeconds;
+                acceptIf = f => IsResolvedOrNoSection(f, at);
                 bool accepted = candidates.Count > 0 && TryBest(candidates, simpler: last - i + 1 > 2, i);
                 acceptIf = null;
                 i = accepted ? i + 2 : last + 1;
             }
         }
+
+        // The spots first..last as one section (see ReactiveSections.Replace), from two starting lengths: half a rise and
+        // one and a half rises beyond the row's span.
+        List<RunModel> SectionReadings(RunModel m, int first, int last)
+        {
+            double span = m.Events[last].RoundTripSeconds - m.Events[first].RoundTripSeconds;
+            return new[] { span + effectiveRiseSeconds / 2, span + 1.5 * effectiveRiseSeconds }
+                .Select(tau => ReactiveSections.Replace(m, first, last, tau)).OfType<RunModel>().ToList();
+        }
+
+        // A fitted section starting at event `at` must be at least MinimumSectionRiseTimes long (a connector is not a
+        // 3 cm section); a fit with anything else there is not held to it.
+        bool IsResolvedOrNoSection(RunModel f, int at) =>
+            f.Events[at].Element != RunModelElement.Boundary || (f.Events.Count > at + 1
+                && f.Events[at + 1].RoundTripSeconds - f.Events[at].RoundTripSeconds >= ResolutionRefinement.MinimumSectionRiseTimes * effectiveRiseSeconds);
 
         // A narrow pair of boundaries on the selected model is tried once more as the spot it may stand for (see
         // TrySections): a section accepted while the rest of the model was still wrong can outlive the reason it won (a
@@ -512,10 +524,21 @@ internal static class ModelSelection
                 var m = best.Model;
                 var e = m.Events[i];
                 // A capacitive spot may be a tap with an open branch longer than a rise (see ReactiveSections.AsTap);
-                // same parameter count, so the tap must win by the margin.
+                // same parameter count, so the tap must win by the margin. A drop a few rises long (a crushed stretch)
+                // also fits first as a spot, and a tap reads a drop and its return far better than the spot does; once
+                // the tap is taken no later move reaches the section, so a tap that wins is tried at once as the
+                // section readings of TrySections (each must beat the tap by the margin). Only then: a spot the tap
+                // does not beat is left to TrySections, and two close spots read as one must not be made a section
+                // before the moves that split them.
                 if (ReactiveSections.AsTap(m, i, effectiveRiseSeconds) is RunModel tapped)
                 {
-                    TryAccept(tapped, simpler: false, i);
+                    if (TryAccept(tapped, simpler: false, i))
+                    {
+                        int at = i;
+                        acceptIf = f => IsResolvedOrNoSection(f, at);
+                        TryBest(SectionReadings(m, i, i), simpler: false, i);
+                        acceptIf = null;
+                    }
                     continue;
                 }
                 if (e.Element is not (RunModelElement.Boundary or RunModelElement.ShuntResistor) || i == m.Events.Count - 1) continue;

@@ -13,14 +13,17 @@ public class ShortSectionTests
 {
     [Theory]
     // 0.30 m is three resolution units v·t_r/2 (0.099 m at 1 ns, VF 0.66).
-    [InlineData(75.0, 0.30)]
-    [InlineData(35.0, 0.30)]
-    [InlineData(75.0, 0.22)]
-    public void ShortSectionIsARiseAndADropAndLeavesTheFarEndInPlace(double sectionOhms, double sectionMeters)
+    [InlineData(75.0, 0.30, 5)]
+    [InlineData(35.0, 0.30, 5)]
+    [InlineData(75.0, 0.22, 5)]
+    // On this noise the drop first fits as a spot that a tap reads better still; the section was never tried against the
+    // tap, and the run was read as a tap, an open and a tap before a short.
+    [InlineData(35.0, 0.30, 6)]
+    public void ShortSectionIsARiseAndADropAndLeavesTheFarEndInPlace(double sectionOhms, double sectionMeters, int seed)
     {
         const double start = 6, end = 12, terminationOhms = 30;
         var network = Run(Segment(start), Segment(sectionMeters, sectionOhms), Segment(end - start - sectionMeters), RunEnd.Resistor(terminationOhms));
-        var result = Locator.Locate(Simulate(network, seed: 5), Options());
+        var result = Locator.Locate(Simulate(network, seed: seed), Options());
         string all = string.Join("; ", result.Events.Select(e => $"{e.Kind} at {e.DistanceMeters:0.###} m"));
 
         // ρ = (Z₁ − Z)/(Z₁ + Z) (Pozar, Microwave Engineering, 4th ed., eq. 2.35); ±0.03 allows for the edge only partly
