@@ -386,11 +386,13 @@ internal static class ModelSelection
             // A split can make the earlier part of the run right for the first time; what follows is then worth reading
             // again (a short behind a leak looks like a step until the leak is modelled as one).
             Prune();
+            TryContinuingLine();
             TrySections();
             Alternatives();
             TryEnds();
         }
 
+        TryContinuingLine();
         TryResistiveEnd();
         Prune();
         NarrowPairsToSpots();
@@ -449,6 +451,17 @@ internal static class ModelSelection
                 if (m.Events[i].Element == RunModelElement.Boundary && Math.Abs(LocalReflection(m, i)) >= EndTrialReflection)
                     candidates.Add(m.WithEvents(m.Events.Take(i + 1)).WithContext(context));
             TryBest(candidates, simpler: null, 0);
+        }
+
+        // The reverse of TryResistiveEnd: a resistor taken on the first fit, when the model was still poor, may have won
+        // by what the events added since explain, and then holds in stand-ins for the slow tail it does not match (a
+        // tap's drop read as a drop, with three stand-ins, behind a matched end on a lossy line). The line going on is
+        // tried again: as many parameters, so it must win by the margin.
+        void TryContinuingLine()
+        {
+            var m = best.Model;
+            if (!m.Context.ResistiveEnd || m.Events.Count == 0 || m.Events[^1].EndsRun) return;
+            TryAccept(m.WithContext(m.Context with { ResistiveEnd = false }), simpler: false, 0);
         }
 
         // A lumped C or L, or a row of them, may be a short section of other cable (see ReactiveSections). Every one is
