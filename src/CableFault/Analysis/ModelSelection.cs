@@ -467,9 +467,8 @@ internal static class ModelSelection
         // A lumped C or L, or a row of them, may be a short section of other cable (see ReactiveSections). Every one is
         // tried: a gate on the local residual, as for a split, missed sections whose misfit the spot spreads thinly over
         // the later trace through the delay it adds (benchmark subset: same accuracy with the gate, +5 % model runs
-        // without it, and sections of about 3 resolution units found only without it). Two starting lengths: half a rise
-        // and one and a half rises beyond the row's span. A section shorter than MinimumSectionRiseTimes stays a spot (a
-        // connector is not a 3 cm section).
+        // without it, and sections of about 3 resolution units found only without it). Two starting lengths (see
+        // SectionReadings); a section shorter than MinimumSectionRiseTimes stays a spot.
         void TrySections()
         {
             int i = 0;
@@ -491,7 +490,7 @@ internal static class ModelSelection
                 int last = ReactiveSections.ClusterEnd(m, i, effectiveRiseSeconds);
                 var candidates = SectionReadings(m, i, last);
                 int at = i;
-                acceptIf = f => IsResolvedOrNoSection(f, at);
+                acceptIf = f => IsResolvedSection(f, at);
                 bool accepted = candidates.Count > 0 && TryBest(candidates, simpler: last - i + 1 > 2, i);
                 acceptIf = null;
                 i = accepted ? i + 2 : last + 1;
@@ -508,10 +507,9 @@ internal static class ModelSelection
         }
 
         // A fitted section starting at event `at` must be at least MinimumSectionRiseTimes long (a connector is not a
-        // 3 cm section); a fit with anything else there is not held to it.
-        bool IsResolvedOrNoSection(RunModel f, int at) =>
-            f.Events[at].Element != RunModelElement.Boundary || (f.Events.Count > at + 1
-                && f.Events[at + 1].RoundTripSeconds - f.Events[at].RoundTripSeconds >= ResolutionRefinement.MinimumSectionRiseTimes * effectiveRiseSeconds);
+        // 3 cm section).
+        bool IsResolvedSection(RunModel f, int at) => f.Events.Count > at + 1
+            && f.Events[at + 1].RoundTripSeconds - f.Events[at].RoundTripSeconds >= ResolutionRefinement.MinimumSectionRiseTimes * effectiveRiseSeconds;
 
         // A narrow pair of boundaries on the selected model is tried once more as the spot it may stand for (see
         // TrySections): a section accepted while the rest of the model was still wrong can outlive the reason it won (a
@@ -548,7 +546,7 @@ internal static class ModelSelection
                     if (TryAccept(tapped, simpler: false, i))
                     {
                         int at = i;
-                        acceptIf = f => IsResolvedOrNoSection(f, at);
+                        acceptIf = f => IsResolvedSection(f, at);
                         TryBest(SectionReadings(m, i, i), simpler: false, i);
                         acceptIf = null;
                     }

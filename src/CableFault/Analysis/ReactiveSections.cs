@@ -112,9 +112,9 @@ internal static class ReactiveSections
     /// few-rise-time excursion often makes it a narrow pair of extreme boundaries (ρ near ±1), which would read as an open
     /// or a short in the middle of a run. A pair that does not return, overshoots both lines and is at most
     /// <paramref name="maximumStepSeconds"/> wide is the spot and a step at one place (a connector where two cables meet):
-    /// the spot of the section's excess reactance at the junction of Z and Z₂, L = (τ/2)(Z₁ − Z·Z₂/Z₁) (a short line of Z₁ is series L (τ/2)Z₁ and shunt C (τ/2)/Z₁, and a shunt C at the junction
-    /// reflects like a series L of −Z·Z₂·C, to first order in ωτ), followed by the step to Z₂. Null when the pair does not
-    /// qualify.
+    /// the spot of the section's excess reactance at the junction of Z and Z₂, L = (τ/2)(Z₁ − Z·Z₂/Z₁) (a short line of Z₁
+    /// is series L (τ/2)Z₁ and shunt C (τ/2)/Z₁, and a shunt C at the junction reflects like a series L of −Z·Z₂·C, to
+    /// first order in ωτ), followed by the step to Z₂. Null when the pair does not qualify.
     /// </summary>
     internal static RunModel? ToSpot(RunModel m, int first, double maximumSeconds, double maximumStepSeconds = 0)
     {
