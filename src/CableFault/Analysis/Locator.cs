@@ -72,6 +72,14 @@ public static class Locator
     /// <see cref="LocateResult.LeavesTraceUnexplained"/>).</summary>
     internal const string ResidualWarningLead = "the model leaves a residual of";
 
+    /// <summary>Smallest residual RMS, as a share of the incident step, that the unexplained-trace warning is given for:
+    /// half the smallest listed step (<see cref="EventClassifier.MinimumListedStepReflection"/>). An unlisted step of
+    /// that size halfway along the record would leave 0.35 % (ρ·√½); a misfit below 0.25 % is the scale of a cable's own
+    /// impedance variation, or of a section whose dielectric differs from the cable's in loss (a wet stretch), which the
+    /// model draws in the cable's own medium. Against the noise alone, a residual of 1 mV on a 1 V step can be five
+    /// times a smoothed record's noise while every event is right (the demo's wet section).</summary>
+    internal const double ResidualWarningFloorRelative = EventClassifier.MinimumListedStepReflection / 2;
+
     /// <summary>Half-settling times of the last candidate's echo kept after it on a lossy cable.</summary>
     internal const double LossySettlingTimes = 10;
 
@@ -274,9 +282,9 @@ public static class Locator
                     $"no cable loss was given: estimated from the trace as {estimated.AttenuationDbPer100m(100e6):0.#} dB/100 m at 100 MHz and {estimated.DcResistanceOhmsPerMeter:0.###} Ω/m DC loop resistance; give the cable type for its data-sheet loss.")
                 : "no cable loss was given, and the trace shows none the fit can tell: the cable was read as lossless; give the cable type for its data-sheet loss.");
         double rms = Math.Sqrt(fit.ResidualSumOfSquares / data.Samples.Length);
-        if (rms > 3 * Math.Sqrt(selection.VarianceVolts2))
+        if (rms > 3 * Math.Sqrt(selection.VarianceVolts2) && rms > ResidualWarningFloorRelative * incidentLevel)
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"{ResidualWarningLead} {rms:G3} V RMS, {rms / Math.Sqrt(selection.VarianceVolts2):0.#} times the noise: part of the trace is not explained; check the cable settings (Z0, VF, loss)."));
+                $"{ResidualWarningLead} {rms:G3} V RMS, {rms / Math.Sqrt(selection.VarianceVolts2):0.#} times the noise and {rms / incidentLevel * 100:0.##} % of the step: part of the trace is not explained; check the cable settings (Z0, VF, loss)."));
         if (!fit.Converged) warnings.Add("the model fit stopped at its iteration limit; positions are from the last iterate.");
         string message = string.Create(CultureInfo.InvariantCulture,
             $"{model.Events.Count} event(s); Levenberg–Marquardt on {data.Samples.Length} samples from {data.StartTimeSeconds * 1e9:0.##} to {data.TimeAt(data.Samples.Length - 1) * 1e9:0.##} ns{(data.FilterSigmaSeconds > 0 ? $" (smoothed to {riseEffective * 1e9:0.###} ns rise)" : "")}; {selection.Trials} alternative model(s) tried; BIC with noise {Math.Sqrt(selection.VarianceVolts2):G3} V.");

@@ -46,20 +46,30 @@ public class SiteScenarioTests
         Assert.True(Math.Abs(e.DistanceMeters - meters) <= tolerance,
             $"{e.Kind} at {e.DistanceMeters:0.###} m, expected {meters} m ± {tolerance} m; all: {Listing(r)}");
 
-    [Fact]
-    public void WetSectionIsOneDropAndOneRiseAndNothingLiesBeyondTheOpenEnd()
+    /// <summary>Locate told the cable's VF and data-sheet loss and a source matched to <paramref name="ohms"/>.</summary>
+    private static LocateOptions Told(CableType cable, double ohms) => new()
+    {
+        VelocityFactor = cable.VelocityFactor, ImpedanceOhms = ohms, SourceImpedanceOhms = ohms, Loss = cable.Loss,
+    };
+
+    /// <summary>The storm-damaged feeder: RG-213 with a 4 nH connector pair at 12 m, a 0.6 m wet section from 27.3 m
+    /// (36 Ω, VF 0.60, 25 dB/100 m at 100 MHz; invented: a wet foam dielectric lowers Z and VF and adds loss) and an
+    /// open end, located with RG-213's settings.</summary>
+    private static LocateResult LocateWetFeeder(int seed)
     {
         var rg213 = CableLibrary.BuiltIn.Get("RG-213");
-        // A 0.6 m wet section: 36 Ω, VF 0.60, 25 dB/100 m at 100 MHz (invented; a wet foam dielectric lowers Z and VF).
         var wet = new CableMedium(36, 0.60, CableLossModel.FromDatasheet(25, 100e6));
         var network = new CableNetwork(new NetworkBranch(
             new CableSegment(12.0, rg213.Medium), new SeriesInductor(4e-9), new CableSegment(15.3, rg213.Medium),
             new CableSegment(0.6, wet), new CableSegment(14.6, rg213.Medium), RunEnd.Open));
-        var options = new LocateOptions
-        {
-            VelocityFactor = rg213.VelocityFactor, ImpedanceOhms = 50, SourceImpedanceOhms = 50, Loss = rg213.Loss,
-        };
-        var result = Locator.Locate(SiteTrace(network, 50, seed: 12), options);
+        return Locator.Locate(SiteTrace(network, 50, seed), Told(rg213, 50));
+    }
+
+    [Fact]
+    public void WetSectionIsOneDropAndOneRiseAndNothingLiesBeyondTheOpenEnd()
+    {
+        var rg213 = CableLibrary.BuiltIn.Get("RG-213");
+        var result = LocateWetFeeder(seed: 12);
 
         // On the VF 0.66 scale the wet section's far side lies at 27.3 + 0.6·0.66/0.60 = 27.96 m and the open end
         // 0.06 m further out than its 42.5 m of cable.
@@ -90,11 +100,7 @@ public class SiteScenarioTests
                 new NetworkBranch(new CableSegment(12.0, rg6.Medium), RunEnd.Resistor(75)),
                 new NetworkBranch(new CableSegment(7.0, rg6.Medium), RunEnd.Open),
             ])));
-        var options = new LocateOptions
-        {
-            VelocityFactor = rg6.VelocityFactor, ImpedanceOhms = 75, SourceImpedanceOhms = 75, Loss = rg6.Loss,
-        };
-        var result = Locator.Locate(SiteTrace(network, 75, seed: 21), options);
+        var result = Locator.Locate(SiteTrace(network, 75, seed: 21), Told(rg6, 75));
 
         Assert.True(result.Events.Count == 2, $"expected 2 events, found {result.Events.Count}: {Listing(result)}");
         var tap = result.Events[0];
@@ -107,5 +113,30 @@ public class SiteScenarioTests
         AssertAt(branchEnd, 25.0, DistanceToleranceMeters, result);
         // The far end lies well inside the record: no warning that it may lie beyond it.
         Assert.DoesNotContain(result.Warnings, w => w.Contains("beyond", StringComparison.OrdinalIgnoreCase));
+    }
+
+    /// <summary>
+    /// The model draws a section in the cable's own medium, so the wet stretch's extra loss leaves a slow misfit of about
+    /// 0.1 % of the step, several times a smoothed record's noise, while every event is right. That is not a trace
+    /// "partly unexplained": the warning would then follow every real cable, whose own impedance varies by more, and stop
+    /// meaning anything. It stays for a wrong setting (see the next check).
+    /// </summary>
+    [Fact]
+    public void WetSectionsOwnLossIsNotCalledAnUnexplainedTrace()
+    {
+        var result = LocateWetFeeder(seed: 12);
+        Assert.True(result.Events.Count == 4, $"expected 4 events, found {result.Events.Count}: {Listing(result)}");
+        Assert.False(result.LeavesTraceUnexplained, string.Join(" | ", result.Warnings));
+    }
+
+    /// <summary>A lossless lab cable located with RG-213's data-sheet loss: every echo is read with edges rounded that the
+    /// trace has sharp, a misfit of a few per cent of the step that the warning must name.</summary>
+    [Fact]
+    public void AWrongLossSettingIsCalledAnUnexplainedTrace()
+    {
+        var rg213 = CableLibrary.BuiltIn.Get("RG-213");
+        var network = new CableNetwork(new NetworkBranch(new CableSegment(42.5, new CableMedium(50, rg213.VelocityFactor)), RunEnd.Open));
+        var result = Locator.Locate(SiteTrace(network, 50, seed: 3), Told(rg213, 50));
+        Assert.True(result.LeavesTraceUnexplained, $"{Listing(result)} | {string.Join(" | ", result.Warnings)}");
     }
 }
