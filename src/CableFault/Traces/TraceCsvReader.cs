@@ -19,6 +19,8 @@ namespace CableFault.Traces;
 /// <para>Assumed, with a warning: no header means two columns, seconds then volts; a header name with no unit
 /// (<c>time</c>) means seconds or volts; a truncated last line is dropped; sample times off a uniform grid by
 /// less than <see cref="MaxStepDeviation"/> per step are resampled.</para>
+/// <para>Read as they are, without a warning: times that sit on a uniform grid to within the rounding of their printed
+/// digits ("1.234567e-06" is exact to half a picosecond), however large that rounding is against the step.</para>
 /// <para>Refused with <see cref="InputException"/> (one line: source, line, problem, remedy): empty file, no numeric
 /// rows, one column, NaN or infinity, time not increasing, duplicate times, gaps, values beyond
 /// <see cref="MaxAbsVolts"/> or times beyond <see cref="MaxAbsTimeSeconds"/>, fewer than two samples, input beyond

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using CableFault;
 using CableFault.Traces;
 
 namespace CableFault.Tests.Traces;
@@ -60,6 +61,51 @@ public class TraceCsvJitterTests
         Assert.Empty(r.Warnings);
         for (int k = 0; k < 1000; k++)
             Assert.Equal(Edge(k * 1e-10 + EdgeTimeSeconds - 50e-9), r.Trace.SamplesVolts[k]);
+    }
+
+    /// <summary>
+    /// A record of 30 000 samples 37.5 ps apart (−5 ns to 1.12 µs) exported with its times in a fixed or shortened
+    /// number of digits, as instruments and spreadsheet exports do: near 1 µs, "%.6e" rounds each time to 1 ps (2.7 % of
+    /// the step), "G6" to 10 ps (27 %), three decimals of a nanosecond to 1 ps. The printed steps wander by up to twice
+    /// that, yet the samples are on the grid: they must be read as they are, without a warning, on the record's own step.
+    /// </summary>
+    [Theory]
+    [InlineData("time_s", 1.0, "0.000000e+00")]
+    [InlineData("time_s", 1.0, "G6")]
+    [InlineData("time_ns", 1e9, "0.000")]
+    public void Times_rounded_by_their_printing_are_read_on_the_grid(string header, double scale, string format)
+    {
+        const double step = 37.5e-12, start = -5e-9;
+        const int count = 30_000;
+        var text = new StringBuilder(header + ",volts\n");
+        for (int k = 0; k < count; k++)
+            text.Append(((start + k * step) * scale).ToString(format, CultureInfo.InvariantCulture)).Append(',')
+                .Append(Edge(k * step).ToString("R", CultureInfo.InvariantCulture)).Append('\n');
+
+        var r = TraceCsvReader.ReadWithWarnings(new StringReader(text.ToString()), "rounded.csv");
+
+        Assert.Empty(r.Warnings);
+        Assert.Equal(count, r.Trace.Length);
+        // The grid is drawn between the printed first and last times: G6 rounds the last by up to 5 ps, 4.4e-6 of a step
+        // spread over the 29 999 steps.
+        Assert.Equal(step, r.Trace.SampleIntervalSeconds, 1e-5 * step);
+        for (int k = 0; k < count; k += 997) Assert.Equal(Edge(k * step), r.Trace.SamplesVolts[k]);
+    }
+
+    /// <summary>However coarsely the times are printed, a missing sample (a step of twice the median) is still a gap.</summary>
+    [Theory]
+    [InlineData("0.000000e+00")]
+    [InlineData("G6")]
+    public void A_missing_sample_is_a_gap_however_the_times_are_printed(string format)
+    {
+        const double step = 37.5e-12, start = -5e-9;
+        var text = new StringBuilder("time_s,volts\n");
+        for (int k = 0; k < 30_000; k++)
+            if (k != 20_000)
+                text.Append((start + k * step).ToString(format, CultureInfo.InvariantCulture)).Append(",0.5\n");
+
+        var e = Assert.Throws<InputException>(() => TraceCsvReader.ReadWithWarnings(new StringReader(text.ToString()), "gap.csv"));
+        Assert.Contains("a gap", e.Message);
     }
 
     private static void CheckResampling(double[] times)

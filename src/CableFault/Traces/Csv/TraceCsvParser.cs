@@ -29,6 +29,7 @@ internal sealed class TraceCsvParser
     private readonly List<double> _times = [];
     private readonly List<double> _values = [];
     private readonly List<int> _lines = [];
+    private TimePrecision? _timePrecision;
     private int _truncatedLine;
     private int _truncatedFieldCount;
 
@@ -171,7 +172,7 @@ internal sealed class TraceCsvParser
             return;
         }
 
-        Accept(Parse(fields[_timeIndex], _timeColumn, ln), Parse(fields[_signalIndex], _signalColumn, ln), ln);
+        Accept(Parse(fields[_timeIndex], _timeColumn, ln), Parse(fields[_signalIndex], _signalColumn, ln), ln, fields[_timeIndex]);
     }
 
     /// <summary>
@@ -200,12 +201,13 @@ internal sealed class TraceCsvParser
         if (!_format.TryParsePlain(time, out double t) || !_format.TryParsePlain(signal, out double v)) return false;
         double tScaled = t / _timeColumn.Divisor, vScaled = v / _signalColumn.Divisor;
         if (!double.IsFinite(tScaled) || !double.IsFinite(vScaled)) return false;
-        Accept(tScaled, vScaled, ln);
+        Accept(tScaled, vScaled, ln, time);
         return true;
     }
 
-    /// <summary>Checks a row's time and value (range, order, sample limit) and keeps them.</summary>
-    private void Accept(double t, double v, int ln)
+    /// <summary>Checks a row's time and value (range, order, sample limit) and keeps them, with how finely the time
+    /// was printed (<paramref name="timeText"/>).</summary>
+    private void Accept(double t, double v, int ln, ReadOnlySpan<char> timeText)
     {
         if (Math.Abs(t) > TraceCsvReader.MaxAbsTimeSeconds)
             throw new InputException(
@@ -220,7 +222,7 @@ internal sealed class TraceCsvParser
             int previousLine = _lines[^1];
             if (t == previous)
                 throw new InputException(
-                    $"{_source}: line {ln}: time {t:G9} s repeats line {previousLine}; remove the duplicate sample.");
+                    $"{_source}: line {ln}: time {t:G9} s repeats line {previousLine}; remove the duplicate sample, or export the times with more digits if they are printed too coarsely to tell the samples apart.");
             if (t < previous)
                 throw new InputException(
                     $"{_source}: line {ln}: time {t:G9} s is earlier than {previous:G9} s on line {previousLine}; time must increase down the file (export one record, sorted by time).");
@@ -231,6 +233,7 @@ internal sealed class TraceCsvParser
         _times.Add(t);
         _values.Add(v);
         _lines.Add(ln);
+        (_timePrecision ??= new TimePrecision(_timeColumn.Divisor)).Note(timeText);
     }
 
     private double Parse(string field, CsvColumn column, int ln)
@@ -269,7 +272,7 @@ internal sealed class TraceCsvParser
         _times.Clear(); _times.Capacity = 0;
         _values.Clear(); _values.Capacity = 0;
         _lines.Clear(); _lines.Capacity = 0;
-        var (start, interval, samples) = UniformGrid.Build(times, values, lines, _source, _warnings);
+        var (start, interval, samples) = UniformGrid.Build(times, values, lines, _timePrecision!, _source, _warnings);
         if (_signalColumn.Quantity == ColumnQuantity.Rho) _metadata.SetDerived(TraceMetadataKeys.Unit, "rho");
         var trace = new Trace(start, interval, samples, _metadata.Values);
         return new TraceReadResult(trace, _warnings.AsReadOnly());

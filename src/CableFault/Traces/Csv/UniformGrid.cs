@@ -7,7 +7,8 @@ namespace CableFault.Traces.Csv;
 /// Puts strictly increasing sample times onto the uniform grid a <see cref="Trace"/> needs: checks that every step is
 /// within <see cref="TraceCsvReader.MaxStepDeviation"/> of the median step, keeps the samples as they are when the
 /// times already sit on the grid (to <see cref="OnGridTolerance"/> of a step), and otherwise interpolates them onto
-/// it with MathNet's natural cubic spline.
+/// it with MathNet's natural cubic spline. Both checks allow each time the rounding of its printed digits
+/// (<see cref="TimePrecision"/>): times printed to a picosecond are on a 37.5 ps grid if they round to it.
 /// </summary>
 internal static class UniformGrid
 {
@@ -29,9 +30,14 @@ internal static class UniformGrid
     /// </summary>
     private const int ChunkMargin = 12;
 
+    /// <summary>Largest share of the median step that printing may excuse: a missing sample (a step twice the median,
+    /// 100 % off) is still a gap however coarsely the times are printed.</summary>
+    private const double MaxPrintedAllowance = 0.5;
+
     public static (double Start, double Interval, double[] Samples) Build(
-        double[] times, double[] values, int[] lineNumbers, string sourceName, List<string> warnings)
+        double[] times, double[] values, int[] lineNumbers, TimePrecision precision, string sourceName, List<string> warnings)
     {
+        double Quantum(int i) => precision.QuantumSeconds(i, times[i]);
         int n = times.Length;
         double start = times[0];
         double interval = (times[n - 1] - start) / (n - 1);
@@ -47,19 +53,35 @@ internal static class UniformGrid
             double deviation = Math.Abs(step - medianStep) / medianStep;
             if (deviation > TraceCsvReader.MaxStepDeviation)
             {
-                string what = step > medianStep ? "a gap" : "an irregular step";
-                throw new InputException(
-                    $"{sourceName}: line {lineNumbers[i + 1]}: time step {step:G4} s after line {lineNumbers[i]} is {what} " +
-                    $"({deviation:P1} off the typical {medianStep:G4} s, more than the {TraceCsvReader.MaxStepDeviation:P0} allowed); " +
-                    "samples may be missing or records merged, export one uniformly sampled record.");
+                // Each end of the step is rounded by up to half its place, and the median step by as much again.
+                double printed = Math.Min(MaxPrintedAllowance, (Quantum(i) + Quantum(i + 1)) / medianStep);
+                if (deviation > TraceCsvReader.MaxStepDeviation + printed)
+                {
+                    string what = step > medianStep ? "a gap" : "an irregular step";
+                    string allowed = printed > 0
+                        ? $"{TraceCsvReader.MaxStepDeviation + printed:P0} allowed for jitter and the times' printed rounding"
+                        : $"{TraceCsvReader.MaxStepDeviation:P0} allowed";
+                    throw new InputException(
+                        $"{sourceName}: line {lineNumbers[i + 1]}: time step {step:G4} s after line {lineNumbers[i]} is {what} " +
+                        $"({deviation:P1} off the typical {medianStep:G4} s, more than the {allowed}); " +
+                        "samples may be missing or records merged, export one uniformly sampled record.");
+                }
             }
             worstStep = Math.Max(worstStep, deviation);
         }
 
-        double worstOffGrid = 0;
+        // The grid runs from the first time to the last, each rounded by up to half its place.
+        double endsRounding = (Quantum(0) + Quantum(n - 1)) / 2;
+        double worstOffGrid = 0, worstUnprinted = 0;
         for (int i = 0; i < n; i++)
-            worstOffGrid = Math.Max(worstOffGrid, Math.Abs(times[i] - (start + i * interval)) / interval);
-        if (worstOffGrid <= OnGridTolerance) return (start, interval, values);
+        {
+            double offset = Math.Abs(times[i] - (start + i * interval));
+            worstOffGrid = Math.Max(worstOffGrid, offset / interval);
+            if (offset <= OnGridTolerance * interval) continue;
+            double rounding = Math.Min(MaxPrintedAllowance * interval, Quantum(i) / 2 + endsRounding);
+            worstUnprinted = Math.Max(worstUnprinted, Math.Max(0, offset - rounding) / interval);
+        }
+        if (worstUnprinted <= OnGridTolerance) return (start, interval, values);
 
         warnings.Add(
             $"{sourceName}: sample times deviate from a uniform grid by up to {worstOffGrid:P2} of the {interval:G4} s step " +
