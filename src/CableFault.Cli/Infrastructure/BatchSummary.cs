@@ -39,7 +39,7 @@ public static class BatchSummary
                 continue;
             }
             var worst = WorstEvent(row.Result.Events);
-            string kind = worst is null ? "none" : string.Create(inv, $"{EventWording.KindWords(worst.Kind)} (ρ {worst.Reflection:+0.000;-0.000})");
+            string kind = worst is null ? "none" : string.Create(inv, $"{EventWording.KindWords(worst.Kind)} (ρ {worst.Reflection:+0.000;-0.000;0.000})");
             string distance = worst is null ? "" : string.Create(inv, $"{unit.FromMeters(worst.DistanceMeters):F2} ± {unit.FromMeters(worst.DistanceSigmaMeters):F2}");
             table.Add([Fit(row.Path), Fit(row.Run ?? ""), row.Result.Events.Count.ToString(inv), kind, distance]);
         }

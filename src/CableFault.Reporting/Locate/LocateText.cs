@@ -45,7 +45,7 @@ public static class LocateText
                 string distance = string.Create(inv, $"{unit.FromMeters(e.DistanceMeters):F2} ± {unit.FromMeters(e.DistanceSigmaMeters):F2}");
                 string status = asBuilt is null ? "" : "  " + AsBuiltWording.Status(asBuilt.Events[index - 1], unit);
                 text.AppendLine(string.Create(inv,
-                    $"  {index++,2}  {distance,-22} {EventWording.KindWords(e.Kind),-19} {e.Reflection,7:+0.000;-0.000}  {EventWording.SizeWords(e),-16} {e.Confidence,9:P0}{status}"));
+                    $"  {index++,2}  {distance,-22} {EventWording.KindWords(e.Kind),-19} {e.Reflection,7:+0.000;-0.000;0.000}  {EventWording.SizeWords(e),-16} {e.Confidence,9:P0}{status}"));
             }
         }
         if (asBuilt is not null)

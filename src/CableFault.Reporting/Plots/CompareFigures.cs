@@ -72,7 +72,7 @@ public static class CompareFigures
         string where = unit.Format(change.DistanceMeters, 1);
         return change.Kind switch
         {
-            EventChangeKind.Moved => string.Create(CultureInfo.InvariantCulture, $"{kind} moved {unit.FromMeters(change.ShiftMeters!.Value):+0.00;-0.00} {unit.Symbol}"),
+            EventChangeKind.Moved => string.Create(CultureInfo.InvariantCulture, $"{kind} moved {unit.FromMeters(change.ShiftMeters!.Value):+0.00;-0.00;0.00} {unit.Symbol}"),
             _ => $"{EventChangeKindNames.ToJsonName(change.Kind)} {kind} {where}",
         };
     }

@@ -172,7 +172,7 @@ public static class Locator
             context = context with { SettlingFraction = fraction, SettlingSeconds = settlingSeconds };
             initial = initial.WithContext(context);
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"the instrument's step settles slowly: {fraction * 100:+0.#;-0.#} % of it over a time constant of {settlingSeconds * 1e9:0.#} ns after the edge (fitted from the trace); every echo was read with the same settling."));
+                $"the instrument's step settles slowly: {fraction * 100:+0.#;-0.#;0} % of it over a time constant of {settlingSeconds * 1e9:0.#} ns after the edge (fitted from the trace); every echo was read with the same settling."));
         }
         else if (options.EstimateSettling)
             warnings.Add("the instrument's step was read as settling at once: the trace shows no slow settling the fit can tell.");
@@ -261,7 +261,7 @@ public static class Locator
         {
             located.Remove(inside);
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"{EventKindNames.ToJsonName(inside.Kind).Replace('_', ' ')} (ρ {inside.Reflection:+0.###;-0.###}) at the instrument's connector, inside the blind zone ({options.WarningDistance(blindMeters)}): the cable or connector against the instrument, not located."));
+                $"{EventKindNames.ToJsonName(inside.Kind).Replace('_', ' ')} (ρ {inside.Reflection:+0.###;-0.###;0}) at the instrument's connector, inside the blind zone ({options.WarningDistance(blindMeters)}): the cable or connector against the instrument, not located."));
         }
 
         // An impedance change or spot this small is within the cable's own variation along its length, and a step
