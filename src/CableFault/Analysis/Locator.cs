@@ -80,6 +80,10 @@ public static class Locator
     /// times a smoothed record's noise while every event is right (the demo's wet section).</summary>
     internal const double ResidualWarningFloorRelative = EventClassifier.MinimumListedStepReflection / 2;
 
+    /// <summary>Share of the record left off its end when the whole record is fitted: the smoothing's σ is a few
+    /// hundredths of a per cent of the span, and it holds the last (noisy) sample beyond the end.</summary>
+    private const double WholeRecordEndMarginShare = 0.005;
+
     /// <summary>Half-settling times of the last candidate's echo kept after it on a lossy cable.</summary>
     internal const double LossySettlingTimes = 10;
 
@@ -192,6 +196,19 @@ public static class Locator
             data = fine;
             riseEffective = riseFine;
         }
+        if (selection.Fit.Model.Context.Loss is { IsLossless: false } && !selection.Fit.Model.Context.ResistiveEnd
+            && !selection.Fit.Model.Events.Any(e => e.EndsRun))
+        {
+            // A run terminated in about its own impedance ends where the lossy line's creep turns, with no step there:
+            // the whole record is read for it (see MatchedLossyEnd).
+            // The smoothing holds the last sample beyond the record's end; stop short of where that would show.
+            double wholeEnd = aligned.EndTimeSeconds - WholeRecordEndMarginShare * (aligned.EndTimeSeconds - aligned.StartTimeSeconds);
+            var whole = FitData.Prepare(aligned, -WindowLeadRiseTimes * rise, wholeEnd, rise, characteristics.NoiseRmsVolts,
+                ResolutionRefinement.MaximumRiseTimesPerWindow);
+            double riseWhole = whole.EffectiveRiseSeconds(rise);
+            if (MatchedLossyEnd.Search(selection, whole, riseWhole, options.CancellationToken) is { } ended)
+                (selection, data, riseEffective) = (ended, whole, riseWhole);
+        }
         if (data.FilterSigmaSeconds > 0)
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
                 $"long record: the model was fitted with an effective rise of {riseEffective * 1e9:0.###} ns, so events closer than about {options.WarningDistance(v * riseEffective / 2)} may show as one."));
@@ -214,6 +231,7 @@ public static class Locator
             var e = model.Events[i];
             int tIndex = model.TimeParameterIndex(i);
             double sigmaT = Math.Sqrt(Math.Max(0, covariance[tIndex, tIndex])) * context.ReferenceRiseSeconds;
+            if (i == model.Events.Count - 1) sigmaT = Math.Sqrt(sigmaT * sigmaT + Math.Pow(selection.LastEventLossSigmaSeconds, 2));
             double sigmaLog = SigmaLog(i);
             bool lastOnMain = weak.Skip(i + 1).All(w => w);
             double misfit = ModelSelection.LocalResidualRatio(fit, data, selection.VarianceVolts2,

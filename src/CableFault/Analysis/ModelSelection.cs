@@ -65,8 +65,11 @@ internal static class ModelSelection
     /// <summary>BIC units within which a trial after its first iterations counts as promising.</summary>
     private const double PromisingMargin = 100;
 
-    /// <summary>The selected model, the variance used, its criterion and each event's evidence.</summary>
-    internal sealed record Result(ModelFit Fit, double VarianceVolts2, double Bic, IReadOnlyList<Evidence> Events, int Trials);
+    /// <summary>The selected model, the variance used, its criterion and each event's evidence; and the last event's
+    /// round-trip σ from a given loss setting that the fit took as exact, s (see <see cref="MatchedLossyEnd"/>; 0 when
+    /// none applies).</summary>
+    internal sealed record Result(ModelFit Fit, double VarianceVolts2, double Bic, IReadOnlyList<Evidence> Events, int Trials,
+        double LastEventLossSigmaSeconds = 0);
 
     /// <summary>What the data say about one event: ΔBIC when it is removed (others fixed) and its peak signature.</summary>
     /// <param name="DeltaBic">BIC without the event minus BIC with it; positive means the event is supported.</param>
