@@ -196,8 +196,7 @@ public static class Locator
             data = fine;
             riseEffective = riseFine;
         }
-        if (selection.Fit.Model.Context.Loss is { IsLossless: false } && !selection.Fit.Model.Context.ResistiveEnd
-            && !selection.Fit.Model.Events.Any(e => e.EndsRun))
+        if (selection.Fit.Model.Context.Loss is { IsLossless: false } && !selection.Fit.Model.Context.ResistiveEnd)
         {
             // A run terminated in about its own impedance ends where the lossy line's creep turns, with no step there:
             // the whole record is read for it (see MatchedLossyEnd).

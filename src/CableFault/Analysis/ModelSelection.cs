@@ -668,7 +668,7 @@ internal static class ModelSelection
     }
 
     /// <summary>Each event as kind@round trip (ns)=value, for <see cref="DebugTrace"/>.</summary>
-    private static string Describe(RunModel m) => string.Join(", ", m.Events.Select(e =>
+    internal static string Describe(RunModel m) => string.Join(", ", m.Events.Select(e =>
         string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{e.Element}@{e.RoundTripSeconds * 1e9:0.0}={e.Value:G3}")));
 
     /// <summary>A hypothesis admitted for a trial fit: the model, its key and the parameters the trial frees.</summary>

@@ -125,7 +125,7 @@ public sealed class DemoWorkflowTests(ITestOutputHelper output)
     public void TheLaunchLeadIsTakenOffAndTheTapStaysWhereItIs()
     {
         // Truth: camera-drop-with-lead.network.json — a 2.0 m lead, then 18.0 m to the tap, whose spare branch runs
-        // 7.0 m to an open outlet (25.0 m from the lead's far connector).
+        // 7.0 m to an open outlet (25.0 m from the lead's far connector) and whose other runs 12.0 m to the camera (30.0 m).
         var run = Network("camera-drop-with-lead.network.json");
         var lead = (CableSegment)run.Run.Elements[0];
         Assert.Equal("launch lead", lead.Label);
@@ -140,6 +140,14 @@ public sealed class DemoWorkflowTests(ITestOutputHelper output)
         var openEvent = events.Single(e => (string?)e!["kind"] == "open")!;
         Assert.InRange((double)tapEvent["distance_m"]!, tapMeters - LeadToleranceMeters, tapMeters + LeadToleranceMeters);
         Assert.InRange((double)openEvent["distance_m"]!, spareEndMeters - LeadToleranceMeters, spareEndMeters + LeadToleranceMeters);
+        // The camera, a 75 Ω load at the end of the other branch, ends the run there and nothing else is listed. It shows
+        // no step, only the end of the lossy cable's creep, so its place is read to its own ± (two σ here).
+        var cameraBranch = tap.Branches.Single(b => b.Elements[^1] is RunEnd { Kind: EndKind.Resistor });
+        double cameraMeters = tapMeters + TotalLength(cameraBranch);
+        var cameraEvent = events.Single(e => (string?)e!["kind"] == "termination")!;
+        double cameraSigma = (double)cameraEvent["distance_sigma_m"]!;
+        Assert.InRange((double)cameraEvent["distance_m"]!, cameraMeters - 2 * cameraSigma, cameraMeters + 2 * cameraSigma);
+        Assert.Equal(3, events.Count);
 
         // Without the lead options the same trace puts the tap a lead's length further out: the options matter.
         var plain = LocateJson(Demo("camera-drop-with-lead.csv"));
