@@ -1,5 +1,3 @@
-using CableFault.Traces;
-
 namespace CableFault.Analysis;
 
 /// <summary>
@@ -7,8 +5,8 @@ namespace CableFault.Analysis;
 /// the run. Skin effect makes a lossy cable's characteristic impedance Z_c(s) = √((R(s) + sL)/(sC)) climb above Z₀ at
 /// low frequencies (R ∝ √f), so the step response of cable that goes on keeps creeping up; a resistor of Z₀ at the end
 /// reflects (Z₀ − Z_c)/(Z₀ + Z_c) &lt; 0 at those frequencies and turns the creep back down from its round trip on
-/// (on RG-6, 40 m into 75 Ω: the level rises by 3 % of the step up to the end's round trip and falls by 2 % in the
-/// 150 ns after it). The detector looks for steps and finds none, and the selection's window ends a few rise times
+/// (on RG-6, 40 m into 75 Ω: the level rises by 3 % of the step up to the end's round trip at 314 ns, falls by 1.3 %
+/// in the 150 ns after it and by 2 % by 1 µs). The detector looks for steps and finds none, and the selection's window ends a few rise times
 /// after the last event it was given, so the run was read as "uniform and matched".
 /// </summary>
 /// <remarks>
