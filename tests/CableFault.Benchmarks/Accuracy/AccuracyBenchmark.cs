@@ -5,7 +5,8 @@
 //   dotnet run -c Release --project tests/CableFault.Benchmarks -- accuracy [--cases N] [--out FILE]
 //       [--seed S] [--threads T] [--no-speed] [--native FILE]
 //   --cases N    random runs in the main set (default 200; every 4th block of 10 by ngspice: 50 of 200);
-//                the side tests scale with N (close pairs N/6, at least 10; matched-line and noise-only N/12, at least 5)
+//                the side tests scale with N (close pairs N/6, at least 10; matched-line, noise-only and matched-end
+//                N/12, at least 5; matched-end: lossy runs into their own impedance, reported but not a target)
 //   --out FILE   CSV with one row per true or reported event of every case (default accuracy-results.csv)
 //   --no-speed   skip the whole-process timing of `cablefault locate`
 //   --loss-scale F   tell locate each lossy run's loss times F (default 1; 0: no loss given, only VF and Z0)
@@ -87,6 +88,7 @@ public static class AccuracyBenchmark
         for (int i = 0; i < closePairs; i++) all.Add(RunGenerator.ClosePair(10_000 + i, seed + 10_000 + i));
         for (int i = 0; i < nothing; i++) all.Add(RunGenerator.NothingThere(20_000 + i, seed + 20_000 + i, noiseOnly: false));
         for (int i = 0; i < nothing; i++) all.Add(RunGenerator.NothingThere(30_000 + i, seed + 30_000 + i, noiseOnly: true));
+        for (int i = 0; i < nothing; i++) all.Add(RunGenerator.MatchedEnd(40_000 + i, seed + 40_000 + i));
         if (only is not null) return CaseDiagnosis.Run(all.Where(c => only.Contains(c.Index)).ToList(), timeoutSeconds, lossScale);
 
         Console.WriteLine($"accuracy benchmark: {cases} random runs ({all.Count(c => c.Source == TraceSource.Ngspice)} by ngspice), " +

@@ -5,7 +5,7 @@ namespace CableFault.Benchmarks.Accuracy;
 
 /// <summary>One benchmark run: a network, the instrument that measured it, and the truth to score against.</summary>
 /// <param name="Index">Case number (also the seed offset), for the CSV.</param>
-/// <param name="Family">"random" (the main set), "close-pair", "matched-line" or "noise-only".</param>
+/// <param name="Family">"random" (the main set), "close-pair", "matched-line", "noise-only" or "matched-end".</param>
 /// <param name="Source">Which simulator makes the trace.</param>
 /// <param name="Network">The run; its main line is the first branch of every junction's continuation (see RunGenerator).</param>
 /// <param name="ImpedanceOhms">Z₀ of the cable (and the instrument's Z_s), Ω.</param>

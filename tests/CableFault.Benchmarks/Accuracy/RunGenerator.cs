@@ -362,6 +362,27 @@ public static class RunGenerator
             noiseOnly ? F($"Z0 {z0} Ω: step into a matched load at the port") : F($"Z0 {z0} Ω, VF {vf:0.###}{(lossy ? ", lossy" : "")}: {length:0.###} m to matched"));
     }
 
+    /// <summary>A lossy run that ends in a resistor of its own impedance (a terminator, a camera): no step where it ends,
+    /// only the turn of the lossy line's creep (see CableFault's MatchedLossyEnd). The truth is a termination there; the
+    /// cable and record are drawn as for <see cref="NothingThere"/>, the loss always present. Scored on its own
+    /// ("matched-end"), not in the main set's figures.</summary>
+    public static AccuracyCase MatchedEnd(int index, int seed)
+    {
+        var rng = new Random(seed);
+        double z0 = Impedances[rng.Next(Impedances.Length)], vf = Uniform(rng, 0.60, 0.85);
+        double rise = LogUniform(rng, 0.2e-9, 2e-9);
+        var loss = CableLossModel.FromDatasheet(Uniform(rng, 2, 12), 100e6, dcResistanceOhmsPerMeter: Uniform(rng, 0, 0.05));
+        var medium = new CableMedium(z0, vf, loss);
+        double u = medium.VelocityMetersPerSecond * rise / 2;
+        double length = Math.Max(Uniform(rng, 20, 400) * u, 1);
+        var network = new CableNetwork(new NetworkBranch(new CableSegment(length, medium), RunEnd.Resistor(z0)), "matched end");
+        double dt = rise / SamplesPerRise, pre = 5 * rise + 2e-9;
+        int count = Math.Max(2048, (int)Math.Ceiling((pre + 4 * network.LongestDelaySeconds() + 40 * rise) / dt));
+        var truth = new List<TruthEvent> { new(length, EventKind.Termination, F($"resistor of {z0} Ω"), 0) };
+        return new AccuracyCase(index, "matched-end", TraceSource.Model, network, z0, vf, loss, rise, dt, count,
+            Uniform(rng, 0, 2e-3), rng.Next(), truth, [], F($"Z0 {z0} Ω, VF {vf:0.###}, u = {u * 1000:0.#} mm, {loss.AttenuationDbPer100m(100e6):0.#} dB/100 m @100 MHz + {loss.DcResistanceOhmsPerMeter:0.###} Ω/m: {length:0.###} m to a {z0} Ω resistor"));
+    }
+
     /// <summary>Peak of the dip/bump V_i·e^(−t/τ) seen through a Gaussian edge of 10–90 % rise t_r (σ = t_r/2.5631), over
     /// V_i: the exponentially modified Gaussian e^(σ²/2τ² − t/τ)·Φ((t − σ²/τ)/σ), maximised over t on a fine grid.</summary>
     public static double PeakOfLumped(double tauSeconds, double riseSeconds)

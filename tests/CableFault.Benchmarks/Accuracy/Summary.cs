@@ -100,6 +100,16 @@ public static class Summary
                 .GroupBy(e => Name(e.Found!.Kind ?? EventKind.Unknown)).Select(g => $"{g.Key} ×{g.Count()}"));
             s.AppendLine(Target(F($"no false events on {family} traces: {count} false in {set.Count(r => r.Locate.Any(e => e.Outcome == Outcome.False))} of {set.Count} traces ({kinds}); refused {refused}, failed {failed}; naive: {set.Sum(r => r.Naive.Count(e => e.Outcome == Outcome.False))} false"), count == 0 && failed == 0));
         }
+        // Not a target of the issue: how often the end of a lossy run into its own impedance is found (see
+        // RunGenerator.MatchedEnd), and what else is listed there.
+        var ends = results.Where(r => r.Case.Family == "matched-end").ToList();
+        if (ends.Count > 0)
+        {
+            var endEvents = ends.SelectMany(r => r.Locate).ToList();
+            int named = endEvents.Count(e => e.KindCorrect == true);
+            var errors = endEvents.Where(e => e.KindCorrect == true).Select(e => Math.Abs(e.ErrorMeters) / e.Truth!.DistanceMeters * 100).ToList();
+            s.AppendLine(F($"lossy runs into a matched resistor (not a target): end found as a termination in {named} of {ends.Count} (within {Scoring.ToleranceUnits} u; median error {Percentile(errors, 0.5):0.###} % of distance), missed {endEvents.Count(e => e.Outcome == Outcome.Missed)}, false {endEvents.Count(e => e.Outcome == Outcome.False)}; refused {ends.Count(r => r.Refusal is not null)}, failed {ends.Count(r => r.Failure is not null)}"));
+        }
         double resolvedFraction = pairs.Count == 0 ? double.NaN : (double)resolved / pairs.Count;
         s.AppendLine(Target(F($"two equal reflections 0.5 u apart at 40 dB SNR resolved ≥ {TargetResolvedFraction:P0}: {resolved}/{pairs.Count} ({resolvedFraction:P0}); at least one found within 2 u: {seenOne}/{pairs.Count}"), resolvedFraction >= TargetResolvedFraction));
         if (speed is { } sp)
