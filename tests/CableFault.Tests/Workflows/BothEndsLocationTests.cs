@@ -6,7 +6,6 @@ using CableFault.Simulation;
 using CableFault.Tests.Reference.Ngspice;
 using CableFault.Traces;
 using CableFault.Workflows;
-using MathNet.Numerics.Interpolation;
 using Xunit.Abstractions;
 
 namespace CableFault.Tests.Workflows;
@@ -206,42 +205,18 @@ public sealed class BothEndsLocationTests(ITestOutputHelper output)
         string I(double value) => value.ToString("R", CultureInfo.InvariantCulture);
         // The edge is the one of Reference/Ngspice/open.cir: V_s = 1 + erf((t − pre)/(σ√2)), erf by Abramowitz & Stegun,
         // Handbook of Mathematical Functions (1964), eq. 7.1.26; the far end is open (1 TΩ for a DC path).
-        string netlist = $$"""
+        string circuit = $$"""
             * both-ends check: {{I(firstMeters)}} m, 100 ohm shunt, {{I(secondMeters)}} m, open
             .param vf={{I(Vf)}} c0=299792458 rise={{I(RiseSeconds)}} pre={{I(PreTriggerSeconds)}} sig={rise/2.5631031310892007} tmax={sig/10}
-            .func aspoly(t) {t*(0.254829592+t*(-0.284496736+t*(1.421413741+t*(-1.453152027+t*1.061405429))))}
-            .func erfpos(x) {1-aspoly(1/(1+0.3275911*x))*exp(-x*x)}
-            .func erfa(x) {sgn(x)*erfpos(abs(x))}
-            Bsrc src 0 V = 1*(1+erfa((time-{pre})/({sig}*sqrt(2))))
+            {{GeneratedNetlist.ErfEdge}}
             Rs src port 50
             T1 port 0 mid 0 Z0=50 TD={{{I(firstMeters)}}/(vf*c0)}
             Rf mid 0 100
             T2 mid 0 far 0 Z0=50 TD={{{I(secondMeters)}}/(vf*c0)}
             Rfar far 0 1e12
             .tran {tmax} {{I(tstop)}} 0 {tmax}
-            .control
-            set wr_singlescale
-            set wr_vecnames
-            option numdgt=12
-            run
-            wrdata port.txt v(port)
-            quit
-            .endc
-            .end
             """;
-        string path = Path.Combine(Path.GetTempPath(), $"cablefault-bothends-{Guid.NewGuid():N}.cir");
-        File.WriteAllText(path, netlist + "\n");
-        try
-        {
-            var (times, volts) = NgspiceRunner.Run(path);
-            var spice = LinearSpline.InterpolateSorted(times, volts);
-            // Trace time t is ngspice time t + pre (edge midpoint at 0), as in NgspiceComparisonTests.
-            var samples = Enumerable.Range(0, settings.SampleCount).Select(i => spice.Interpolate(i * SampleSeconds)).ToArray();
-            return new Trace(-PreTriggerSeconds, SampleSeconds, samples);
-        }
-        finally
-        {
-            File.Delete(path);
-        }
+        // Trace time t is ngspice time t + pre (edge midpoint at 0), as in NgspiceComparisonTests.
+        return GeneratedNetlist.Run(circuit, "bothends", PreTriggerSeconds, SampleSeconds, settings.SampleCount);
     }
 }

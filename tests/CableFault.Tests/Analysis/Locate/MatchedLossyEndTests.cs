@@ -7,7 +7,6 @@ using CableFault.Reporting.Locate;
 using CableFault.Simulation;
 using CableFault.Tests.Reference.Ngspice;
 using CableFault.Traces;
-using MathNet.Numerics.Interpolation;
 
 namespace CableFault.Tests.Analysis.Locate;
 
@@ -110,44 +109,18 @@ public class MatchedLossyEndTests
     {
         const double vf = 0.66, z0 = 100, ohmsPerMeter = 0.2, rise = 2e-9, pre = 10e-9, dt = rise / 8, tstop = 700e-9;
         string I(double value) => value.ToString("R", CultureInfo.InvariantCulture);
-        string netlist = $$"""
+        string circuit = $$"""
             * matched lossy end: {{I(meters)}} m of RLC line into {{I(z0)}} ohm
             .param z0={{I(z0)}} vf={{I(vf)}} len={{I(meters)}} r={{I(ohmsPerMeter)}} rise={{I(rise)}} pre={{I(pre)}} c0=299792458
             .param sig={rise/2.5631031310892007} tmax={sig/10}
-            .func aspoly(t) {t*(0.254829592+t*(-0.284496736+t*(1.421413741+t*(-1.453152027+t*1.061405429))))}
-            .func erfpos(x) {1-aspoly(1/(1+0.3275911*x))*exp(-x*x)}
-            .func erfa(x) {sgn(x)*erfpos(abs(x))}
-            Bsrc src 0 V = 1*(1+erfa((time-{pre})/({sig}*sqrt(2))))
+            {{GeneratedNetlist.ErfEdge}}
             Rs src port {z0}
             O1 port 0 far 0 lmod
             .model lmod ltra r={r} l={z0/(vf*c0)} g=0 c={1/(z0*vf*c0)} len={len}
             Rfar far 0 {z0}
             .tran {tmax} {{I(tstop + pre)}} 0 {tmax}
-            .control
-            set wr_singlescale
-            set wr_vecnames
-            option numdgt=12
-            run
-            wrdata port.txt v(port)
-            quit
-            .endc
-            .end
             """;
-        string path = Path.Combine(Path.GetTempPath(), $"cablefault-matched-end-{Guid.NewGuid():N}.cir");
-        File.WriteAllText(path, netlist + "\n");
-        Trace trace;
-        try
-        {
-            var (times, volts) = NgspiceRunner.Run(path);
-            var spice = LinearSpline.InterpolateSorted(times, volts);
-            // Trace time t is ngspice time t + pre (edge midpoint at 0), as in NgspiceComparisonTests.
-            int count = (int)Math.Floor(tstop / dt);
-            trace = new Trace(-pre, dt, Enumerable.Range(0, count).Select(i => spice.Interpolate(i * dt)).ToArray());
-        }
-        finally
-        {
-            File.Delete(path);
-        }
+        var trace = GeneratedNetlist.Run(circuit, "matched-end", pre, dt, (int)Math.Floor(tstop / dt));
         var result = Locator.Locate(trace, new LocateOptions
         {
             VelocityFactor = vf, ImpedanceOhms = z0, SourceImpedanceOhms = z0, Loss = new CableLossModel(0, 0, ohmsPerMeter),
