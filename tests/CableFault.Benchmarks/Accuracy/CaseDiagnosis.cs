@@ -30,7 +30,7 @@ public static class CaseDiagnosis
                 });
                 double seconds = watch.Elapsed.TotalSeconds;
                 foreach (var e in result.Events)
-                    Console.WriteLine(F($"  found  {e.DistanceMeters,10:0.####} m  {EventKindNames.ToJsonName(e.Kind),-18} ρ {e.Reflection:+0.000;-0.000} Z {e.ImpedanceOhms:0.#} value {e.Value:G4} conf {e.Confidence:0.00}"));
+                    Console.WriteLine(F($"  found  {e.DistanceMeters,10:0.####} m  {EventKindNames.ToJsonName(e.Kind),-18} ρ {e.Reflection:+0.000;-0.000;0.000} Z {e.ImpedanceOhms:0.#} value {e.Value:G4} conf {e.Confidence:0.00}"));
                 Console.WriteLine(F($"  {seconds:0.###} s, {Interlocked.Read(ref RunModel.SimulationCount) - before} forward runs; {result.Fit.Message}"));
                 foreach (var w in result.Warnings) Console.WriteLine("  warning: " + w);
             }

@@ -57,7 +57,7 @@ public static class TraceDiagnosis
         var profile = LayerPeeling.Profile(aligned, characteristics, z0, vf, options.Loss, options.SourceImpedanceOhms);
         foreach (var c in EventDetector.Detect(aligned, characteristics, profile))
             Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"  candidate {c.RoundTripSeconds * 1e9,9:0.00} ns  {c.Shape,-5} Δρ {c.ReflectionStep:+0.0000;-0.0000}  SNR {c.SignalToNoise:0.0}  Z after {c.ImpedanceAfterOhms:0.0}"));
+                $"  candidate {c.RoundTripSeconds * 1e9,9:0.00} ns  {c.Shape,-5} Δρ {c.ReflectionStep:+0.0000;-0.0000;0.0000}  SNR {c.SignalToNoise:0.0}  Z after {c.ImpedanceAfterOhms:0.0}"));
         // Warm the JIT first, so the elapsed times on each line are the analysis's own.
         Locator.Locate(trace, options);
         long before = RunModel.SimulationCount;
@@ -74,7 +74,7 @@ public static class TraceDiagnosis
             $"    [{watch.Elapsed.TotalMilliseconds,6:0} ms cpu {CpuMilliseconds(),6:0} ms {RunModel.SimulationCount - before,5} runs] {m}"));
         var result = Locator.Locate(trace, options);
         foreach (var e in result.Events)
-            Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {e.DistanceMeters,9:0.000} m  {EventKindNames.ToJsonName(e.Kind),-18} ρ {e.Reflection:+0.000;-0.000}  conf {e.Confidence:0.00}"));
+            Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {e.DistanceMeters,9:0.000} m  {EventKindNames.ToJsonName(e.Kind),-18} ρ {e.Reflection:+0.000;-0.000;0.000}  conf {e.Confidence:0.00}"));
         Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  {watch.Elapsed.TotalSeconds:0.000} s, {RunModel.SimulationCount - before} forward runs; {result.Fit.Message}"));
         foreach (var w in result.Warnings) Console.WriteLine("  warning: " + w);
         return 0;
