@@ -279,7 +279,7 @@ public static class Locator
         {
             located.Remove(inside);
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"{EventKindNames.ToJsonName(inside.Kind).Replace('_', ' ')} (ρ {inside.Reflection:+0.###;-0.###;0}) at the instrument's connector, inside the blind zone ({options.WarningDistance(blindMeters)}): the cable or connector against the instrument, not located.{SourceMismatchHint(inside, options)}"));
+                $"{EventKindNames.ToJsonName(inside.Kind).Replace('_', ' ')} (ρ {inside.Reflection:+0.###;-0.###;0}) at the instrument's connector, inside the blind zone ({options.WarningDistance(blindMeters)}): the cable or connector against the instrument, not located.{SourceImpedanceCheck.ConnectorStepHint(inside, options.SourceImpedanceOhms)}"));
         }
 
         // An impedance change or spot this small is within the cable's own variation along its length, and a step
@@ -311,29 +311,6 @@ public static class Locator
         var modelTrace = new Trace(data.StartTimeSeconds, data.IntervalSeconds, fit.ModelSamples);
         return new LocateResult(aligned, characteristics, profile, located.OrderBy(e => e.DistanceMeters).ToList(), report,
             blindMeters, options, warnings, modelTrace);
-    }
-
-    /// <summary>Instrument source impedances common in the trade, Ω: 50 Ω (RF and general) and 75 Ω (video and CATV)
-    /// reflectometers (common practice).</summary>
-    private static readonly double[] CommonSourceOhms = [50, 75];
-
-    /// <summary>
-    /// A step at the connector that is just what an instrument of another common impedance shows on this cable: the
-    /// model takes the instrument as <see cref="LocateOptions.SourceImpedanceOhms"/> and the step as the cable's, so a
-    /// source of Z_s·(1 − ρ)/(1 + ρ) would read the same cable without it (ρ = (Z − Z_s)/(Z + Z_s), Pozar,
-    /// <i>Microwave Engineering</i>, 4th ed., eq. 2.35). Left so, every impedance and size beyond is read on a scale
-    /// that is off by that ratio (a 75 Ω camera on 75 Ω cable, measured with a 50 Ω instrument taken for 75 Ω, read as
-    /// 112 Ω). Empty unless the implied source is within 4 % of a common one and 10 % from the one assumed.
-    /// </summary>
-    private static string SourceMismatchHint(LocatedEvent inside, LocateOptions options)
-    {
-        if (inside.Kind is not (EventKind.ImpedanceRise or EventKind.ImpedanceDrop)) return "";
-        double zs = options.SourceImpedanceOhms;
-        double implied = zs * (1 - inside.Reflection) / (1 + inside.Reflection);
-        double common = CommonSourceOhms.MinBy(c => Math.Abs(implied / c - 1));
-        if (Math.Abs(implied / common - 1) > 0.04 || Math.Abs(common / zs - 1) < 0.1) return "";
-        return string.Create(CultureInfo.InvariantCulture,
-            $" It is just what a {common:0} Ω instrument shows on this cable: if yours is {common:0} Ω, give its source impedance (--source-ohms {common:0}), or every impedance beyond reads {zs / common:0.##} times what it is, and every lumped size is off with it.");
     }
 
     /// <summary>The candidates as detected, without the model: positions from the detector, sizes from the profile.</summary>

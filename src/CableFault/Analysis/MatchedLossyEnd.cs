@@ -64,8 +64,7 @@ internal static class MatchedLossyEnd
         // model run): a misfit that an end can explain lies after the last event, while one before it is the model's
         // own (stand-ins the selection kept), which an end does not mend and whose refits over the whole record cost
         // seconds for nothing.
-        double nu = data.IndependentFraction;
-        double Excess(double rss, double samples) => nu * rss / variance - nu * samples - 3 * Math.Sqrt(2 * nu * samples);
+        double Excess(double rss, double samples) => ModelSelection.ExcessOverNoise(rss, samples, data, variance);
         double gate = 2 * logN + ModelSelection.EvidenceMargin;
         var (before, after, split) = SplitResidual(start, data, effectiveRiseSeconds);
         double excessBefore = Excess(before, split), excessAfter = Excess(after, data.Samples.Length - split);
@@ -81,7 +80,7 @@ internal static class MatchedLossyEnd
         // bends its events and level to follow the creep's turn (a blind-zone step of +0.003 grew to +0.25 on 40 m of
         // RG-6). A tap made from the selection's shunt and end is scanned from its refit: its branch was only a guess.
         var fitted = ending is null ? start : goingOn.Model;
-        double impedance = LineImpedance(fitted, fitted.Events.Count);
+        double impedance = RunModelBuilder.ImpedanceBefore(fitted, fitted.Events.Count);
         double from = (fitted.Events.Count > 0 ? fitted.Events[^1].RoundTripSeconds : 0) + ScanClearRiseTimes * effectiveRiseSeconds;
         if (Scan(fitted, impedance, from, data, effectiveRiseSeconds) is not { } scanned) return null;
 
@@ -191,16 +190,6 @@ internal static class MatchedLossyEnd
         return Math.Abs(places[1] - places[0]) / 2;
     }
 
-    /// <summary>Impedance of the main line after its first <paramref name="count"/> events, Ω: a tap's branch leaves the
-    /// main line as it was.</summary>
-    private static double LineImpedance(RunModel m, int count)
-    {
-        double z = m.Context.ImpedanceOhms;
-        foreach (var e in m.Events.Take(count))
-            if (e.Element == RunModelElement.Boundary) z = e.Value;
-        return z;
-    }
-
     /// <summary>True when event <paramref name="index"/> ends the main line: an open or a short, or a step to |ρ| ≥ the
     /// classifier's end threshold (which it names an open or a short).</summary>
     private static bool Ends(RunModel m, int index)
@@ -208,7 +197,7 @@ internal static class MatchedLossyEnd
         var e = m.Events[index];
         if (e.EndsRun) return true;
         if (e.Element != RunModelElement.Boundary) return false;
-        double z = LineImpedance(m, index);
+        double z = RunModelBuilder.ImpedanceBefore(m, index);
         return Math.Abs((e.Value - z) / (e.Value + z)) >= EventClassifier.EndReflection;
     }
 
@@ -222,7 +211,7 @@ internal static class MatchedLossyEnd
         {
             var e = m.Events[i];
             if (e.Element != RunModelElement.ShuntResistor) continue;
-            double z = LineImpedance(m, i), conductance = 0;
+            double z = RunModelBuilder.ImpedanceBefore(m, i), conductance = 0;
             int next = i;
             while (next < m.Events.Count && m.Events[next].Element == RunModelElement.ShuntResistor
                    && m.Events[next].RoundTripSeconds - e.RoundTripSeconds <= effectiveRiseSeconds)

@@ -857,7 +857,13 @@ internal static class ModelSelection
     internal static double LocalExcess(ModelFit fit, FitData data, double variance, double timeSeconds, double riseSeconds)
     {
         var (sumSquares, count) = LocalResidual(fit, data, timeSeconds, riseSeconds);
-        if (count < 2) return 0;
+        return count < 2 ? 0 : ExcessOverNoise(sumSquares, count, data, variance);
+    }
+
+    /// <summary>χ² of a residual sum of squares over <paramref name="count"/> of the data's samples beyond what noise
+    /// explains: ν·RSS/σ² less its mean ν·n and three standard deviations √(2ν·n) of a χ² with ν·n degrees of freedom.</summary>
+    internal static double ExcessOverNoise(double sumSquares, double count, FitData data, double variance)
+    {
         double nu = data.IndependentFraction;
         double dof = nu * count;
         return nu * sumSquares / variance - dof - 3 * Math.Sqrt(2 * dof);

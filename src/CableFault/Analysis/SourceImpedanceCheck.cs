@@ -10,7 +10,8 @@ namespace CableFault.Analysis;
 /// impedance beyond. When the selected model has an event at two or three times an earlier one's round trip, it is
 /// refitted with a 50 Ω source (its step's amplitude rescaled so that the first plateau stays where it is), with every
 /// event and without those returns; a better criterion is said in a warning.
-/// The reading is not changed: the instrument's impedance is the technician's to state.
+/// The reading is not changed: the instrument's impedance is the technician's to state. On lossy cable the mismatch
+/// shows instead as a step at the port, inside the blind zone; <see cref="ConnectorStepHint"/> names it there.
 /// </summary>
 internal static class SourceImpedanceCheck
 {
@@ -51,5 +52,27 @@ internal static class SourceImpedanceCheck
         if (!better) return null;
         return string.Create(CultureInfo.InvariantCulture,
             $"the trace reads better with a {CommonSourceOhms:0} Ω instrument than with the {c.SourceImpedanceOhms:0.#} Ω taken: if yours is {CommonSourceOhms:0} Ω, give its source impedance (--source-ohms {CommonSourceOhms:0}). As read, an echo that returns to the instrument comes back again and may show as an event at twice its distance, and every impedance beyond reads {c.SourceImpedanceOhms / CommonSourceOhms:0.##} times what it is.");
+    }
+
+    /// <summary>Instrument source impedances common in the trade, Ω: 50 Ω (RF and general) and 75 Ω (video and CATV)
+    /// reflectometers (common practice).</summary>
+    private static readonly double[] CommonSources = [50, 75];
+
+    /// <summary>
+    /// A step at the connector that is just what an instrument of another common impedance shows on this cable: the
+    /// model takes the instrument as <paramref name="sourceOhms"/> and the step as the cable's, so a
+    /// source of Z_s·(1 − ρ)/(1 + ρ) would read the same cable without it (ρ = (Z − Z_s)/(Z + Z_s), Pozar,
+    /// <i>Microwave Engineering</i>, 4th ed., eq. 2.35). Left so, every impedance and size beyond is read on a scale
+    /// that is off by that ratio (a 75 Ω camera on 75 Ω cable, measured with a 50 Ω instrument taken for 75 Ω, read as
+    /// 112 Ω). Empty unless the implied source is within 4 % of a common one and 10 % from the one assumed.
+    /// </summary>
+    internal static string ConnectorStepHint(LocatedEvent inside, double sourceOhms)
+    {
+        if (inside.Kind is not (EventKind.ImpedanceRise or EventKind.ImpedanceDrop)) return "";
+        double implied = sourceOhms * (1 - inside.Reflection) / (1 + inside.Reflection);
+        double common = CommonSources.MinBy(c => Math.Abs(implied / c - 1));
+        if (Math.Abs(implied / common - 1) > 0.04 || Math.Abs(common / sourceOhms - 1) < 0.1) return "";
+        return string.Create(CultureInfo.InvariantCulture,
+            $" It is just what a {common:0} Ω instrument shows on this cable: if yours is {common:0} Ω, give its source impedance (--source-ohms {common:0}), or every impedance beyond reads {sourceOhms / common:0.##} times what it is, and every lumped size is off with it.");
     }
 }
