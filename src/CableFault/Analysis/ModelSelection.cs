@@ -683,12 +683,21 @@ internal static class ModelSelection
             if (count == 1) body(0);
             return;
         }
+        // The last item still running, once the others are done, splits its serial runs over the cores they have left.
+        var items = BinSplitting.GroupFor(count);
         try
         {
             Parallel.For(0, count, new ParallelOptions { CancellationToken = cancellation }, k =>
             {
-                using var sideBySide = BinSplitting.SideBySide();
-                body(k);
+                try
+                {
+                    using var sideBySide = BinSplitting.SideBySideIn(items);
+                    body(k);
+                }
+                finally
+                {
+                    items?.Leave();
+                }
             });
         }
         catch (AggregateException e)

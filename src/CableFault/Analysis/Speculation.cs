@@ -22,17 +22,33 @@ internal static class Speculation
         Func<CancellationToken, TAhead> ahead, Func<TFirst, bool> keepsAhead, CancellationToken cancellation)
     {
         using var aheadCancellation = CancellationTokenSource.CreateLinkedTokenSource(cancellation);
+        // While both steps run, neither spreads its runs over the other's core; the one that outlives the other then
+        // has both (BinSplitting.SideBySideIn).
+        var steps = BinSplitting.GroupFor(2);
         var aheadTask = Task.Run(() =>
         {
-            using var sideBySide = BinSplitting.SideBySide();
-            return ahead(aheadCancellation.Token);
+            try
+            {
+                using var sideBySide = BinSplitting.SideBySideIn(steps);
+                return ahead(aheadCancellation.Token);
+            }
+            finally
+            {
+                steps?.Leave();
+            }
         }, CancellationToken.None);
         TFirst result;
         bool keep;
         try
         {
-            // Both steps run at once: neither spreads its runs over the other's core.
-            using (BinSplitting.SideBySide()) result = first();
+            try
+            {
+                using (BinSplitting.SideBySideIn(steps)) result = first();
+            }
+            finally
+            {
+                steps?.Leave();
+            }
             keep = keepsAhead(result);
         }
         catch

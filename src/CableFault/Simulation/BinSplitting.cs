@@ -20,25 +20,62 @@ internal static class BinSplitting
 
     [ThreadStatic] private static int sideBySideDepth;
 
+    /// <summary>The group whose member this thread's outermost mark is (<see cref="SideBySideIn"/>), or null.</summary>
+    [ThreadStatic] private static Group? outermostGroup;
+
     /// <summary>True when runs on this thread may take the other cores: the thread is not inside work that already runs
-    /// beside other work.</summary>
-    internal static bool IsAllowed => HasSeveralCores && sideBySideDepth == 0;
+    /// beside other work, or only inside a group's mark whose other members have all finished.</summary>
+    internal static bool IsAllowed => HasSeveralCores
+        && (sideBySideDepth == 0 || sideBySideDepth == 1 && outermostGroup is { IsLastRunning: true });
 
     /// <summary>Marks this thread's work until disposal as running beside other work: its runs keep to this thread.</summary>
     internal static Scope SideBySide()
     {
         sideBySideDepth++;
-        return new Scope(true);
+        return new Scope(true, false);
+    }
+
+    /// <summary>As <see cref="SideBySide"/> for one member of <paramref name="group"/>, but only while another member is
+    /// unfinished: the member that outlives the rest then has the cores to itself, and its serial runs split their bins
+    /// again (the bits do not change). Without a group (see <see cref="GroupFor"/>), or inside another mark, this is a plain
+    /// <see cref="SideBySide"/>: that mark's other work still runs.</summary>
+    internal static Scope SideBySideIn(Group? group)
+    {
+        if (group is null || sideBySideDepth > 0) return SideBySide();
+        sideBySideDepth++;
+        outermostGroup = group;
+        return new Scope(true, true);
     }
 
     /// <summary>Ends a <see cref="SideBySide"/> mark on the thread that made it.</summary>
-    internal readonly struct Scope(bool active) : IDisposable
+    internal readonly struct Scope(bool active, bool outermost) : IDisposable
     {
         public void Dispose()
         {
-            if (active) sideBySideDepth--;
+            if (!active) return;
+            sideBySideDepth--;
+            if (outermost) outermostGroup = null;
         }
     }
+
+    /// <summary>Work items started side by side (see <see cref="SideBySideIn"/>); each calls <see cref="Leave"/> when it
+    /// ends, fails or is abandoned, after its mark's scope has closed.</summary>
+    /// <param name="members">How many items the group has, started or not.</param>
+    internal sealed class Group(int members)
+    {
+        private int unfinished = members;
+
+        /// <summary>True when at most one member has not finished: the one asking is the last.</summary>
+        internal bool IsLastRunning => Volatile.Read(ref unfinished) <= 1;
+
+        /// <summary>A member has ended: the cores it used are free.</summary>
+        internal void Leave() => Interlocked.Decrement(ref unfinished);
+    }
+
+    /// <summary>A group for work started on this thread: null when this thread's runs may not take the other cores
+    /// themselves (its work already runs beside other work, which its items would then not know of), so that the items
+    /// keep plain marks.</summary>
+    internal static Group? GroupFor(int members) => IsAllowed ? new Group(members) : null;
 
     /// <summary>Runs <paramref name="work"/> on bins [0, <paramref name="bins"/>): as two halves side by side when
     /// allowed and worth it, else in one pass. <paramref name="work"/> must touch only its own range of any array.</summary>

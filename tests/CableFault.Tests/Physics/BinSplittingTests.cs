@@ -84,4 +84,36 @@ public class BinSplittingTests
         }
         Assert.True(split.AsSpan().SequenceEqual(single), "the split run's samples differ from the single thread's");
     }
+
+    /// <summary>A group member's mark keeps the runs to this thread while another member is unfinished and lets them
+    /// split once the others have left (on a machine with more than one core); a mark nested inside it, or one made inside
+    /// an ordinary mark, is never lifted, because other work still runs beside it.</summary>
+    [Fact]
+    public void AGroupMembersMarkIsLiftedOnlyWhenTheOthersHaveLeftAndOnlyWhenOutermost()
+    {
+        bool severalCores = Environment.ProcessorCount > 1;
+        var group = new BinSplitting.Group(3);
+        using (BinSplitting.SideBySideIn(group))
+        {
+            Assert.False(BinSplitting.IsAllowed);
+            group.Leave();
+            Assert.False(BinSplitting.IsAllowed);
+            group.Leave();
+            Assert.Equal(severalCores, BinSplitting.IsAllowed);
+            using (BinSplitting.SideBySide()) Assert.False(BinSplitting.IsAllowed);
+            Assert.Equal(severalCores, BinSplitting.IsAllowed);
+        }
+        Assert.Equal(severalCores, BinSplitting.IsAllowed);
+
+        var alone = new BinSplitting.Group(1);
+        using (BinSplitting.SideBySide())
+        {
+            using (BinSplitting.SideBySideIn(alone)) Assert.False(BinSplitting.IsAllowed);
+            // Work started inside a mark gets no group: its items would not know of the work beside it.
+            Assert.Null(BinSplitting.GroupFor(2));
+        }
+        using (BinSplitting.SideBySideIn(alone)) Assert.Equal(severalCores, BinSplitting.IsAllowed);
+        // The lifted mark is gone with its scope: a plain mark made next is not lifted by the old group.
+        using (BinSplitting.SideBySide()) Assert.False(BinSplitting.IsAllowed);
+    }
 }

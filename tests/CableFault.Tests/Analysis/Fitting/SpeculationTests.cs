@@ -1,4 +1,5 @@
 using CableFault.Analysis;
+using CableFault.Simulation;
 
 namespace CableFault.Tests.Analysis.Fitting;
 
@@ -89,6 +90,76 @@ public class SpeculationTests
         var ahead = new StopsWhenCancelled();
         Assert.Throws<FormatException>(() => Speculation.Run<int, int>(() => 1, ahead.Run, _ => throw new FormatException(), CancellationToken.None));
         Assert.True(ahead.Stopped);
+    }
+
+    /// <summary>Neither step splits its runs over the other's core while both run; the step that outlives the other then
+    /// may (on a machine with more than one core): here the ahead step, once the first has returned, and the first step,
+    /// once the ahead one has.</summary>
+    [Fact]
+    public void TheStepThatOutlivesTheOtherMaySplitItsRuns()
+    {
+        bool severalCores = Environment.ProcessorCount > 1;
+        using var aheadLooked = new ManualResetEventSlim();
+        bool aheadWhileBoth = true, aheadAlone = false;
+        var (_, _, kept) = Speculation.Run(() =>
+        {
+            Assert.False(BinSplitting.IsAllowed);
+            // Bounded waits: a step that never comes fails the test instead of hanging it.
+            Assert.True(aheadLooked.Wait(TimeSpan.FromMinutes(1)));
+            return 1;
+        }, _ =>
+        {
+            aheadWhileBoth = BinSplitting.IsAllowed;
+            aheadLooked.Set();
+            // The first step is marked finished just after it returns: wait for that, then look again.
+            aheadAlone = severalCores && SpinWait.SpinUntil(() => BinSplitting.IsAllowed, TimeSpan.FromMinutes(1));
+            return 0;
+        }, _ => true, CancellationToken.None);
+        Assert.True(kept);
+        Assert.False(aheadWhileBoth);
+        Assert.Equal(severalCores, aheadAlone);
+
+        bool firstAlone = false;
+        using var aheadEnded = new ManualResetEventSlim();
+        Speculation.Run(() =>
+        {
+            Assert.True(aheadEnded.Wait(TimeSpan.FromMinutes(1)));
+            firstAlone = severalCores && SpinWait.SpinUntil(() => BinSplitting.IsAllowed, TimeSpan.FromMinutes(1));
+            return 1;
+        }, _ =>
+        {
+            aheadEnded.Set();
+            return 0;
+        }, _ => true, CancellationToken.None);
+        Assert.Equal(severalCores, firstAlone);
+    }
+
+    /// <summary>Trial fits side by side (ModelSelection.ForEachInParallel): the item that outlives the others may split
+    /// its runs (on a machine with more than one core); inside work that already runs beside other work, none may.</summary>
+    [Fact]
+    public void TheLastTrialRunningMaySplitItsRunsUnlessAllRunBesideOtherWork()
+    {
+        bool severalCores = Environment.ProcessorCount > 1;
+        const int items = 3;
+        int done = 0;
+        bool lastAlone = false;
+        ModelSelection.ForEachInParallel(items, _ =>
+        {
+            if (Interlocked.Increment(ref done) < items) return;
+            // The others have returned; each leaves its group just after. Bounded: a mark never lifted fails, not hangs.
+            lastAlone = severalCores && SpinWait.SpinUntil(() => BinSplitting.IsAllowed, TimeSpan.FromMinutes(1));
+        }, CancellationToken.None);
+        Assert.Equal(severalCores, lastAlone);
+
+        int allowed = 0;
+        done = 0;
+        using (BinSplitting.SideBySide())
+            ModelSelection.ForEachInParallel(items, _ =>
+            {
+                if (Interlocked.Increment(ref done) == items) Thread.Sleep(20);
+                if (BinSplitting.IsAllowed) Interlocked.Increment(ref allowed);
+            }, CancellationToken.None);
+        Assert.Equal(0, allowed);
     }
 
     /// <summary>An ahead step that only a cancellation ends, and that marks itself stopped late (so that a discard that
