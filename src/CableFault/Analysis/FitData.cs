@@ -12,6 +12,10 @@ internal sealed class FitData
     /// (about 5 per rise time spanned) and so the cost of one model evaluation.</summary>
     internal const double MaximumRiseTimesPerWindow = 200;
 
+    /// <summary>Multiply-adds of a smoothing above which its kept samples are shared among the cores (about a
+    /// millisecond of work: well above the cost of handing work to the thread pool).</summary>
+    private const long ParallelMinimumWork = 1_000_000;
+
     /// <summary>Gaussian σ of a 10–90 % rise, in units of the rise: 1/(2√2·erf⁻¹(0.8)).</summary>
     private const double SigmaPerRise = 1 / 2.5631031310892007;
 
@@ -86,18 +90,39 @@ internal sealed class FitData
         for (int m = -half; m <= half; m++) sum += kernel[m + half] = Math.Exp(-0.5 * m * m / (sigmaSamples * sigmaSamples));
         double sumSquares = 0;
         for (int m = 0; m < kernel.Length; m++) { kernel[m] /= sum; sumSquares += kernel[m] * kernel[m]; }
-        for (int j = 0; j < count; j++)
+        // The kernel's weights summed in the order the loop below adds them: every kept sample whose kernel lies within
+        // the record divides by exactly this, so it is added up once.
+        double fullWeight = 0;
+        for (int m = 0; m < kernel.Length; m++) fullWeight += kernel[m];
+        void Smooth(int from, int to)
         {
-            int centre = first + j * stride;
-            double acc = 0, weight = 0;
-            for (int m = -half; m <= half; m++)
+            for (int j = from; j < to; j++)
             {
-                int i = centre + m;
-                // Beyond the record's ends, hold the end value (the level there is flat to within the noise).
-                acc += kernel[m + half] * samples[Math.Clamp(i, 0, samples.Length - 1)];
-                weight += kernel[m + half];
+                int centre = first + j * stride;
+                double acc = 0;
+                if (centre - half >= 0 && centre + half < samples.Length)
+                {
+                    for (int m = 0; m < kernel.Length; m++) acc += kernel[m] * samples[centre - half + m];
+                    y[j] = acc / fullWeight;
+                    continue;
+                }
+                double weight = 0;
+                for (int m = -half; m <= half; m++)
+                {
+                    int i = centre + m;
+                    // Beyond the record's ends, hold the end value (the level there is flat to within the noise).
+                    acc += kernel[m + half] * samples[Math.Clamp(i, 0, samples.Length - 1)];
+                    weight += kernel[m + half];
+                }
+                y[j] = acc / weight;
             }
-            y[j] = acc / weight;
+        }
+        // Each kept sample on its own: a long record's smoothing is shared among the cores (the same sums, so the same bits).
+        if ((long)count * kernel.Length < ParallelMinimumWork || !CableFault.Simulation.BinSplitting.IsAllowed) Smooth(0, count);
+        else
+        {
+            int chunks = Math.Min(count, 4 * Environment.ProcessorCount);
+            Parallel.For(0, chunks, c => Smooth((int)((long)count * c / chunks), (int)((long)count * (c + 1) / chunks)));
         }
         double independent = Math.Min(1, stride * dt / (2 * Math.Sqrt(Math.PI) * sigmaFilter));
         return new FitData(y, aligned.TimeAt(first), stride * dt, sigmaFilter, noiseRmsVolts * Math.Sqrt(sumSquares), independent);
