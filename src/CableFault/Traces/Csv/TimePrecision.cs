@@ -24,8 +24,12 @@ internal sealed class TimePrecision
     /// <param name="divisor">The time column's divisor to seconds (<see cref="CsvColumn.Divisor"/>).</param>
     internal TimePrecision(double divisor) => _divisor = divisor;
 
-    /// <summary>Notes the printed time of the next accepted sample.</summary>
-    internal void Note(ReadOnlySpan<char> field)
+    /// <summary>How a time was printed: in exponent notation or not, its significant digits, and its decimals (after the
+    /// mark; plain notation only).</summary>
+    internal readonly record struct Printed(bool Exponent, int Significant, int Decimals);
+
+    /// <summary>How <paramref name="field"/>, a printed time, was printed.</summary>
+    internal static Printed Measure(ReadOnlySpan<char> field)
     {
         field = field.Trim().TrimStart("+-");
         int e = field.IndexOfAny('e', 'E');
@@ -34,14 +38,20 @@ internal sealed class TimePrecision
         int significant = 0;
         foreach (char c in mantissa)
             if (char.IsAsciiDigit(c) && (significant > 0 || c != '0')) significant++;
-        _exponentNotation.Add(e >= 0);
-        if (e >= 0)
+        return new Printed(e >= 0, significant, e >= 0 || mark < 0 ? 0 : mantissa.Length - mark - 1);
+    }
+
+    /// <summary>Notes how the time of the next accepted sample was printed (<see cref="Measure"/>).</summary>
+    internal void Note(Printed printed)
+    {
+        _exponentNotation.Add(printed.Exponent);
+        if (printed.Exponent)
         {
-            _exponentSignificant = Math.Max(_exponentSignificant, significant);
+            _exponentSignificant = Math.Max(_exponentSignificant, printed.Significant);
             return;
         }
-        _plainSignificant = Math.Max(_plainSignificant, significant);
-        _plainDecimals = Math.Max(_plainDecimals, mark < 0 ? 0 : mantissa.Length - mark - 1);
+        _plainSignificant = Math.Max(_plainSignificant, printed.Significant);
+        _plainDecimals = Math.Max(_plainDecimals, printed.Decimals);
     }
 
     /// <summary>The place value of the last printed digit of sample <paramref name="index"/>'s time

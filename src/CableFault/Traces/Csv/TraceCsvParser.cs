@@ -43,20 +43,111 @@ internal sealed class TraceCsvParser
     public TraceReadResult Parse(TextReader reader)
     {
         var lines = new CsvLineSource(reader, _source, _limits.MaxInputBytes, _limits.MaxLineChars);
-        while (lines.TryReadLine(out string raw))
+        var batch = new DataLineBatch();
+        while (NextLine(lines, batch, out string raw))
         {
             int ln = lines.LineNumber;
             if (raw.Contains('\0'))
+            {
+                // The lines before it are read first, so that the first bad line is the one reported.
+                ReadBatch(batch);
                 throw new InputException(
                     $"{_source}: line {ln}: contains NUL characters, so it is binary or UTF-16 without a byte-order mark; save it as UTF-8 text.");
+            }
             string line = raw.Trim();
             if (line.Length == 0) continue;
             _anyContent = true;
+            if (_format is not null && line[0] != '#')
+            {
+                batch.Add(line, ln);
+                if (batch.IsFull) ReadBatch(batch);
+                continue;
+            }
+            ReadBatch(batch);
             if (line[0] == '#') _metadata.ReadComment(line, ln);
-            else if (_format is null) ReadBeforeData(line, ln);
-            else ReadDataLine(line, ln);
+            else ReadBeforeData(line, ln);
         }
+        ReadBatch(batch);
         return Finish();
+    }
+
+    /// <summary>The next line; when the input is refused (too large, a line too long), the rows before it are read
+    /// first, so that a bad row among them is still the error reported.</summary>
+    private bool NextLine(CsvLineSource lines, DataLineBatch batch, out string line)
+    {
+        try
+        {
+            return lines.TryReadLine(out line);
+        }
+        catch (InputException)
+        {
+            ReadBatch(batch);
+            throw;
+        }
+    }
+
+    /// <summary>
+    /// Reads a batch of data rows in file order. The rows' numbers are parsed first, each row on its own (shared among the
+    /// cores for a large batch: parsing is most of a long file's reading); then every row is checked and kept in order as
+    /// <see cref="ReadDataLine"/> would, so a bad file fails at the same first bad line with the same message.
+    /// </summary>
+    private void ReadBatch(DataLineBatch batch)
+    {
+        if (batch.Count == 0) return;
+        var rows = batch.Rows;
+        if (_truncatedLine == 0)
+        {
+            void ParseRows(int from, int to)
+            {
+                for (int k = from; k < to; k++) rows[k].Plain = TryParsePlainRow(rows[k].Line, out rows[k].Values);
+            }
+            if (batch.Count < ParallelMinimumRows || !Simulation.BinSplitting.IsAllowed) ParseRows(0, batch.Count);
+            else
+            {
+                int chunks = Math.Min(batch.Count / (ParallelMinimumRows / 2), 2 * Environment.ProcessorCount);
+                Parallel.For(0, chunks, c => ParseRows(batch.Count * c / chunks, batch.Count * (c + 1) / chunks));
+            }
+        }
+        for (int k = 0; k < batch.Count; k++)
+        {
+            ref var row = ref rows[k];
+            // A row after a short one is an error however it parsed (ReadDataLine reports it).
+            if (_truncatedLine == 0 && row.Plain) Accept(row.Values.Time, row.Values.Value, row.LineNumber, row.Values.Printed);
+            else ReadDataLine(row.Line, row.LineNumber);
+        }
+        batch.Clear();
+    }
+
+    /// <summary>Rows parsed side by side only from this many on (a few hundred microseconds of parsing).</summary>
+    private const int ParallelMinimumRows = 2048;
+
+    /// <summary>Data rows held until they are read together (see <see cref="ReadBatch"/>).</summary>
+    private sealed class DataLineBatch
+    {
+        private const int Capacity = 8192;
+
+        internal Row[] Rows { get; } = new Row[Capacity];
+
+        internal int Count { get; private set; }
+
+        internal bool IsFull => Count == Capacity;
+
+        internal void Add(string line, int lineNumber) => Rows[Count++] = new Row { Line = line, LineNumber = lineNumber };
+
+        internal void Clear()
+        {
+            Array.Clear(Rows, 0, Count);
+            Count = 0;
+        }
+    }
+
+    /// <summary>One data row: its text and line, and once parsed, whether it is a plain row and its values.</summary>
+    private struct Row
+    {
+        internal string Line;
+        internal int LineNumber;
+        internal bool Plain;
+        internal PlainValues Values;
     }
 
     private void ReadBeforeData(string line, int ln)
@@ -172,16 +263,30 @@ internal sealed class TraceCsvParser
             return;
         }
 
-        Accept(Parse(fields[_timeIndex], _timeColumn, ln), Parse(fields[_signalIndex], _signalColumn, ln), ln, fields[_timeIndex]);
+        Accept(Parse(fields[_timeIndex], _timeColumn, ln), Parse(fields[_signalIndex], _signalColumn, ln), ln,
+            TimePrecision.Measure(fields[_timeIndex]));
     }
 
-    /// <summary>
-    /// The usual data row read without splitting it into strings: unquoted fields of plain numbers, as many as the row
-    /// must have. Anything else (quotes, a decimal comma, a word, a missing or extra field) returns false and the row is
-    /// read field by field, which reports what is wrong. A row this accepts, that reading would take the same way.
-    /// </summary>
+    /// <summary>The usual data row read without splitting it into strings (see <see cref="TryParsePlainRow"/>).</summary>
     private bool TryReadPlainDataLine(string line, int ln)
     {
+        if (!TryParsePlainRow(line, out var values)) return false;
+        Accept(values.Time, values.Value, ln, values.Printed);
+        return true;
+    }
+
+    /// <summary>A plain row's time and value (in seconds and volts) and how finely its time is printed.</summary>
+    private readonly record struct PlainValues(double Time, double Value, TimePrecision.Printed Printed);
+
+    /// <summary>
+    /// Parses the usual data row without splitting it into strings: unquoted fields of plain numbers, as many as the row
+    /// must have. Anything else (quotes, a decimal comma, a word, a missing or extra field) returns false and the row is
+    /// read field by field, which reports what is wrong. A row this accepts, that reading would take the same way. Reads
+    /// only settings fixed once the data start, so rows may be parsed side by side.
+    /// </summary>
+    private bool TryParsePlainRow(string line, out PlainValues values)
+    {
+        values = default;
         if (line.Contains('"')) return false;
         ReadOnlySpan<char> rest = line, time = default, signal = default;
         int count = 0, nonEmpty = 0;
@@ -201,13 +306,13 @@ internal sealed class TraceCsvParser
         if (!_format.TryParsePlain(time, out double t) || !_format.TryParsePlain(signal, out double v)) return false;
         double tScaled = t / _timeColumn.Divisor, vScaled = v / _signalColumn.Divisor;
         if (!double.IsFinite(tScaled) || !double.IsFinite(vScaled)) return false;
-        Accept(tScaled, vScaled, ln, time);
+        values = new PlainValues(tScaled, vScaled, TimePrecision.Measure(time));
         return true;
     }
 
     /// <summary>Checks a row's time and value (range, order, sample limit) and keeps them, with how finely the time
-    /// was printed (<paramref name="timeText"/>).</summary>
-    private void Accept(double t, double v, int ln, ReadOnlySpan<char> timeText)
+    /// was printed (<paramref name="printed"/>).</summary>
+    private void Accept(double t, double v, int ln, TimePrecision.Printed printed)
     {
         if (Math.Abs(t) > TraceCsvReader.MaxAbsTimeSeconds)
             throw new InputException(
@@ -233,7 +338,7 @@ internal sealed class TraceCsvParser
         _times.Add(t);
         _values.Add(v);
         _lines.Add(ln);
-        (_timePrecision ??= new TimePrecision(_timeColumn.Divisor)).Note(timeText);
+        (_timePrecision ??= new TimePrecision(_timeColumn.Divisor)).Note(printed);
     }
 
     private double Parse(string field, CsvColumn column, int ln)
