@@ -2,8 +2,9 @@ namespace CableFault.Traces.Csv;
 
 /// <summary>
 /// One pass over a trace CSV: comments and metadata anywhere, then preamble lines, an optional header and the data
-/// rows. Everything is checked as it streams by, so a bad file fails at its first bad line and a huge one at the
-/// limit, not after it has been read whole. See <see cref="TraceCsvReader"/> for the accepted format.
+/// rows. Everything is checked as it streams by (data rows a batch of a few thousand at a time), so a bad file fails at
+/// its first bad line and a huge one at the limit, not after it has been read whole. See <see cref="TraceCsvReader"/>
+/// for the accepted format.
 /// </summary>
 internal sealed class TraceCsvParser
 {
