@@ -118,12 +118,8 @@ internal sealed class FitData
             }
         }
         // Each kept sample on its own: a long record's smoothing is shared among the cores (the same sums, so the same bits).
-        if ((long)count * kernel.Length < ParallelMinimumWork || !CableFault.Simulation.BinSplitting.IsAllowed) Smooth(0, count);
-        else
-        {
-            int chunks = Math.Min(count, 4 * Environment.ProcessorCount);
-            Parallel.For(0, chunks, c => Smooth((int)((long)count * c / chunks), (int)((long)count * (c + 1) / chunks)));
-        }
+        int ranges = (long)count * kernel.Length < ParallelMinimumWork ? 1 : 4 * Environment.ProcessorCount;
+        Simulation.BinSplitting.ForRanges(count, ranges, Smooth);
         double independent = Math.Min(1, stride * dt / (2 * Math.Sqrt(Math.PI) * sigmaFilter));
         return new FitData(y, aligned.TimeAt(first), stride * dt, sigmaFilter, noiseRmsVolts * Math.Sqrt(sumSquares), independent);
     }

@@ -5,7 +5,8 @@ namespace CableFault.Simulation;
 /// computed on its own (the operations run outer, the bins inner), so two halves of the bins can run side by side and
 /// give the bits of one pass. That pays only where nothing else is running: a fit's serial Levenberg–Marquardt steps
 /// leave the second core idle, while its Jacobian's columns, trial fits side by side and a batch's traces already keep
-/// it busy. Work that runs beside other work says so with <see cref="SideBySide"/>, on the thread that does it.
+/// it busy. Work that runs beside other work says so with <see cref="SideBySide"/>, on the thread that does it. Other
+/// serial work made of independent items follows the same rule (<see cref="ForRanges"/>).
 /// </summary>
 internal static class BinSplitting
 {
@@ -88,5 +89,19 @@ internal static class BinSplitting
             return;
         }
         Parallel.Invoke(() => work(0, split), () => work(split, bins));
+    }
+
+    /// <summary>Runs <paramref name="work"/> on items [0, <paramref name="count"/>) as <paramref name="ranges"/> ranges
+    /// side by side when allowed (other serial work whose items are each computed on their own: a record's smoothing, a
+    /// batch of CSV rows), else in one pass. <paramref name="work"/> must touch only its own range of any array.</summary>
+    internal static void ForRanges(int count, int ranges, Action<int, int> work)
+    {
+        ranges = Math.Min(ranges, count);
+        if (!IsAllowed || ranges <= 1)
+        {
+            work(0, count);
+            return;
+        }
+        Parallel.For(0, ranges, r => work((int)((long)count * r / ranges), (int)((long)count * (r + 1) / ranges)));
     }
 }

@@ -102,12 +102,9 @@ internal sealed class TraceCsvParser
             {
                 for (int k = from; k < to; k++) rows[k].Plain = TryParsePlainRow(rows[k].Line, out rows[k].Values);
             }
-            if (batch.Count < ParallelMinimumRows || !Simulation.BinSplitting.IsAllowed) ParseRows(0, batch.Count);
-            else
-            {
-                int chunks = Math.Min(batch.Count / (ParallelMinimumRows / 2), 2 * Environment.ProcessorCount);
-                Parallel.For(0, chunks, c => ParseRows(batch.Count * c / chunks, batch.Count * (c + 1) / chunks));
-            }
+            int ranges = batch.Count < ParallelMinimumRows ? 1
+                : Math.Min(batch.Count / (ParallelMinimumRows / 2), 2 * Environment.ProcessorCount);
+            Simulation.BinSplitting.ForRanges(batch.Count, ranges, ParseRows);
         }
         for (int k = 0; k < batch.Count; k++)
         {
